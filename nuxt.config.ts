@@ -5,7 +5,43 @@ export default defineNuxtConfig({
   telemetry: false,
   devtools: { enabled: false },
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  css: ['~/assets/css/main.css'],
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Densitas',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1' },
+        { name: 'description', content: 'Charge-air temperature and heat-soak analysis for tuning and fabrication workshops.' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  // Defaults only: each key is overridden at run time by its NUXT_* variable
+  // (DATABASE_URL and UPLOADS_DIR are also honoured, see server/utils/config.ts).
+  runtimeConfig: {
+    databaseUrl: './data/densitas.sqlite',
+    uploadsDir: './data/uploads',
+    migrationsDir: './db/migrations',
+    seedDemo: true,
+    // Behind a reverse proxy, take the client address from X-Forwarded-For (for the sign-in limits).
+    trustProxy: false,
+    loginLimit: {
+      perEmail: 5,
+      perIp: 30,
+      windowMinutes: 15,
+    },
+    public: {
+      appUrl: 'http://localhost:3000',
+    },
+  },
+  nitro: {
+    experimental: { tasks: false },
+  },
   eslint: {
     config: { stylistic: true },
+  },
+  typescript: {
+    strict: true,
   },
 })

@@ -1,0 +1,49 @@
+import type { H3Event } from 'h3'
+import { eq } from 'drizzle-orm'
+import type { Actor } from '#shared/utils/abilities'
+import type { Role } from '#shared/utils/roles'
+
+export interface CurrentUser extends Actor {
+  email: string
+  name: string
+  preferences: Record<string, string>
+}
+
+// The session only says who signed in; the role and workshop are re-read from the database on
+// every request, so a role changed by the owner takes effect on the next request.
+export async function requireActor(event: H3Event): Promise<CurrentUser> {
+  const session = await requireUserSession(event)
+  const row = useDb().select().from(tables.users).where(eq(tables.users.id, session.user.id)).get()
+  if (!row) {
+    await clearUserSession(event)
+    throw createError({ statusCode: 401, message: 'Your account no longer exists. Ask the workshop owner for a new invitation.' })
+  }
+  const user: CurrentUser = {
+    id: row.id,
+    role: row.role as Role,
+    workshopId: row.workshopId,
+    email: row.email,
+    name: row.name,
+    preferences: row.preferences,
+  }
+  if (session.user.role !== user.role || session.user.workshopId !== user.workshopId || session.user.name !== user.name) {
+    await replaceUserSession(event, { user: toSessionUser(user), loggedInAt: session.loggedInAt })
+  }
+  event.context.actor = user
+  return user
+}
+
+export function toSessionUser(user: CurrentUser) {
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    workshopId: user.workshopId,
+    preferences: user.preferences,
+  }
+}
+
+export function currentUserFromRow(row: typeof tables.users.$inferSelect): CurrentUser {
+  return { id: row.id, role: row.role, workshopId: row.workshopId, email: row.email, name: row.name, preferences: row.preferences }
+}

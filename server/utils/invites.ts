@@ -1,0 +1,12 @@
+import { and, eq, gt, isNull } from 'drizzle-orm'
+
+export function findOpenInvite(token: string) {
+  const { invites, workshops } = tables
+  const row = useDb().select({ invite: invites, workshopName: workshops.name })
+    .from(invites)
+    .innerJoin(workshops, eq(workshops.id, invites.workshopId))
+    .where(and(eq(invites.tokenHash, hashToken(token)), isNull(invites.acceptedAt), gt(invites.expiresAt, new Date())))
+    .get()
+  if (!row) notFound('Invitation (it may have expired or been used already)')
+  return row
+}

@@ -1,0 +1,49 @@
+import type { Role } from './roles'
+
+// One small predicate per permission, used by the API routes (authoritative) and by pages (cosmetic).
+// Scoping to the actor's workshop is done in SQL by the routes; these predicates decide what a role
+// may do with a row it can already see.
+
+export interface Actor {
+  id: number
+  role: Role
+  workshopId: number
+}
+
+interface OwnedByDriver {
+  ownerId: number
+}
+
+const STAFF: readonly Role[] = ['owner', 'tuner', 'fabricator']
+
+export const isStaff = (actor: Actor) => STAFF.includes(actor.role)
+
+// Members, invites and prices are the owner's.
+export const canManageMembers = (actor: Actor) => actor.role === 'owner'
+export const canManagePrices = (actor: Actor) => actor.role === 'owner'
+
+// Vehicles: staff see every car of the workshop; a driver sees only their own.
+export const canSeeAllVehicles = (actor: Actor) => isStaff(actor)
+export const canViewVehicle = (actor: Actor, vehicle: OwnedByDriver) => isStaff(actor) || vehicle.ownerId === actor.id
+export const canCreateVehicle = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner' || actor.role === 'driver'
+export const canEditVehicle = (actor: Actor, vehicle: OwnedByDriver) =>
+  actor.role === 'owner' || actor.role === 'tuner' || (actor.role === 'driver' && vehicle.ownerId === actor.id)
+// Deleting a car deletes its logs and reports, so it stays with the workshop, not the customer.
+export const canDeleteVehicle = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
+// Only staff may hand a car to another customer.
+export const canReassignVehicle = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
+
+// Logs and their reports follow the car.
+export const canViewLog = (actor: Actor, vehicle: OwnedByDriver) => canViewVehicle(actor, vehicle)
+export const canUploadLog = (actor: Actor, vehicle: OwnedByDriver) =>
+  actor.role === 'owner' || actor.role === 'tuner' || (actor.role === 'driver' && vehicle.ownerId === actor.id)
+export const canEditLog = (actor: Actor, vehicle: OwnedByDriver) => canUploadLog(actor, vehicle)
+export const canDeleteLog = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
+export const canShareReport = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
+export const canCompareLogs = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
+
+// Core catalogue and quotes are the fabricator's trade.
+export const canViewCores = (actor: Actor) => isStaff(actor)
+export const canManageCores = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
+export const canManageQuotes = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
+export const canViewQuote = (actor: Actor, quote: { customerId: number }) => canManageQuotes(actor) || quote.customerId === actor.id
