@@ -1,6 +1,9 @@
 import { defineConfig } from 'vitest/config'
+import { defineVitestProject } from '@nuxt/test-utils/config'
 
 // Four tiers, one command: `vitest run` runs them all; `--project NAME` runs one.
+// api and e2e share one built server each (tests/setup/server.ts); their files run one at a time
+// because they share that server's database.
 export default defineConfig({
   test: {
     projects: [
@@ -9,6 +12,35 @@ export default defineConfig({
           name: 'unit',
           include: ['tests/unit/**/*.test.ts'],
           environment: 'node',
+        },
+      },
+      await defineVitestProject({
+        test: {
+          name: 'nuxt',
+          include: ['tests/nuxt/**/*.test.ts'],
+          environment: 'nuxt',
+        },
+      }),
+      {
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/setup/server.ts'],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/setup/server.ts'],
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
         },
       },
     ],

@@ -12,7 +12,7 @@ export interface CurrentUser extends Actor {
 // The session only says who signed in; the role and workshop are re-read from the database on
 // every request, so a role changed by the owner takes effect on the next request.
 export async function requireActor(event: H3Event): Promise<CurrentUser> {
-  const session = await requireUserSession(event)
+  const session = await requireUserSession(event, { message: 'Sign in first: this needs a Densitas account.' })
   const row = useDb().select().from(tables.users).where(eq(tables.users.id, session.user.id)).get()
   if (!row) {
     await clearUserSession(event)

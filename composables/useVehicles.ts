@@ -1,0 +1,15 @@
+export function useVehicles() {
+  return useFetch('/api/vehicles', { key: 'vehicles', default: () => [] })
+}
+
+export function useVehicle(id: MaybeRefOrGetter<number>) {
+  return useFetch(() => `/api/vehicles/${toValue(id)}`, { key: `vehicle-${toValue(id)}` })
+}
+
+export function useCustomers() {
+  return useFetch('/api/members', { key: 'members', default: () => [] })
+}
+
+export function useCores() {
+  return useFetch('/api/cores', { key: 'cores', default: () => [] })
+}

@@ -1,0 +1,17 @@
+import type { Role } from './roles'
+
+export interface NavItem {
+  to: string
+  label: string
+}
+
+// The menu each role sees. Pages still check on the server; this only hides what a role cannot use.
+export function navigationFor(role: Role): NavItem[] {
+  const home: NavItem = { to: '/', label: role === 'driver' ? 'My cars' : 'Overview' }
+  const items: NavItem[] = [home]
+  if (role !== 'driver') items.push({ to: '/vehicles', label: 'Cars' })
+  if (role === 'owner' || role === 'fabricator') items.push({ to: '/cores', label: 'Core catalogue' })
+  if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
+  items.push({ to: '/account', label: 'My account' })
+  return items
+}
