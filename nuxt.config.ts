@@ -1,11 +1,7 @@
 // Densitas: Nuxt 4 with the flat layout (no app/ folder), so the project root is the source dir.
 export default defineNuxtConfig({
-  srcDir: '.',
-  compatibilityDate: '2026-11-01',
-  telemetry: false,
-  devtools: { enabled: false },
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
-  css: ['~/assets/css/main.css'],
+  devtools: { enabled: false },
   app: {
     head: {
       htmlAttrs: { lang: 'en' },
@@ -17,6 +13,7 @@ export default defineNuxtConfig({
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
     },
   },
+  css: ['~/assets/css/main.css'],
   // Defaults only: each key is overridden at run time by its NUXT_* variable
   // (DATABASE_URL and UPLOADS_DIR are also honoured, see server/utils/config.ts).
   runtimeConfig: {
@@ -35,13 +32,16 @@ export default defineNuxtConfig({
       appUrl: 'http://localhost:3000',
     },
   },
+  srcDir: '.',
+  compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },
   },
-  eslint: {
-    config: { stylistic: true },
-  },
   typescript: {
     strict: true,
+  },
+  telemetry: false,
+  eslint: {
+    config: { stylistic: true },
   },
 })
