@@ -42,7 +42,8 @@ function incompleteGammaTails(x: number): Float64Array {
  */
 export function crossflowUnmixedExact(ntu: number, cr: number): number {
   if (!(ntu > 0)) return 0
-  if (cr <= 0) return -Math.expm1(-ntu)
+  // Below 1e-100 the Cr correction is far below double precision, and Cr·NTU may underflow to 0.
+  if (cr * ntu < 1e-100) return -Math.expm1(-ntu)
   const a = incompleteGammaTails(ntu)
   const b = incompleteGammaTails(cr * ntu)
   const terms = Math.min(a.length, b.length)
@@ -63,7 +64,7 @@ export function crossflowUnmixedExact(ntu: number, cr: number): number {
  */
 export function crossflowUnmixedApprox(ntu: number, cr: number): number {
   if (!(ntu > 0)) return 0
-  if (cr <= 0) return -Math.expm1(-ntu)
+  if (cr < 1e-100) return -Math.expm1(-ntu)
   return -Math.expm1(Math.pow(ntu, 0.22) * Math.expm1(-cr * Math.pow(ntu, 0.78)) / cr)
 }
 

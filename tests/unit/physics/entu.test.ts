@@ -100,7 +100,7 @@ describe('candidate core (reference sheet §6.3, COMPUTED)', () => {
     expect(p.ntu).toBeCloseTo(2.24683, 5)
     expect(Math.abs(p.effectiveness - 0.84501)).toBeLessThan(1e-4)
     expect(Math.abs(p.heatDutyW - 13772.7)).toBeLessThan(0.1)
-    expect(Math.abs(p.chargeOutK - K(41.22)) ).toBeLessThan(5e-3)
+    expect(Math.abs(p.chargeOutK - K(41.22))).toBeLessThan(5e-3)
     expect(Math.abs(p.coolingOutK - K(41.13))).toBeLessThan(5e-3)
     expect(p.chargeSideEffectiveness).toBeCloseTo(p.effectiveness, 12)
   })
