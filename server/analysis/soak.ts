@@ -35,6 +35,7 @@ export interface RecoveryFit {
 const MIN_GAP_S = 15
 /** Time after a pull before the core recovery is fitted, s (common practice, no source). */
 const RECOVERY_SETTLE_S = 8
+const MAX_FITTED_GAPS = 40
 
 /**
  * Recovery between pulls: after each pull, charge temperature relaxes towards a cruise level;
@@ -43,7 +44,10 @@ const RECOVERY_SETTLE_S = 8
  */
 export function recoveryTimeConstant(timeS: Float64Array, chargeK: Float32Array, flags: Uint8Array, pulls: readonly PullWindow[]): RecoveryFit {
   const taus: number[] = []
-  for (let k = 0; k + 1 < pulls.length; k++) {
+  // On very long logs a sample of gaps is enough for a median, and keeps the cost bounded.
+  const gaps = pulls.length - 1
+  const stride = Math.max(1, Math.ceil(gaps / MAX_FITTED_GAPS))
+  for (let k = 0; k + 1 < pulls.length; k += stride) {
     const from = pulls[k]!.endIndex
     const to = pulls[k + 1]!.startIndex
     if (to - from < 8 || timeS[to - 1]! - timeS[from]! < MIN_GAP_S) continue
@@ -54,8 +58,8 @@ export function recoveryTimeConstant(timeS: Float64Array, chargeK: Float32Array,
     while (peak < to && timeS[peak]! - timeS[from]! < settleS) peak++
     const xs: number[] = []
     const ys: number[] = []
-    // At most ~400 points per gap: plenty for a three-parameter fit and cheap on long logs.
-    const step = Math.max(1, Math.floor((to - peak) / 400))
+    // At most ~200 points per gap: plenty for a three-parameter fit and cheap on long logs.
+    const step = Math.max(1, Math.floor((to - peak) / 200))
     for (let i = peak; i < to; i += step) {
       if (flags[i] !== 0 || !Number.isFinite(chargeK[i]!)) continue
       xs.push(timeS[i]!)

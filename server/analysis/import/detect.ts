@@ -63,6 +63,8 @@ export interface SampleAnalysis {
   rows: string[][]
   /** The sample ended before the end of the source, so `rows` is a prefix. */
   truncated: boolean
+  /** Mean length of the sampled data lines in characters, terminator included (sizes the arrays). */
+  charsPerRow: number
 }
 
 /** How many bytes of the source are looked at for detection. */
@@ -349,6 +351,8 @@ export function analyseSample(text: string, encoding: SourceEncoding, bom: boole
       `The file has a header row (${header.length} columns) but no data rows. Check that the logger finished writing, then export again.`, { line: headerLineIndex + 2 })
   }
   const rows = dataLines.map(line => splitCells(line, delimiter))
+  const terminator = detectLineEnding(text) === 'crlf' ? 2 : 1
+  const charsPerRow = dataLines.length > 0 ? dataLines.reduce((sum, line) => sum + line.length + terminator, 0) / dataLines.length : 64
   const headerIsNumeric = header.every(cell => cell.trim() !== '' && Number.isFinite(readNumberCell(cell, false).value))
   if (headerIsNumeric) {
     throw new LogImportError('NO_COLUMNS',
@@ -383,6 +387,7 @@ export function analyseSample(text: string, encoding: SourceEncoding, bom: boole
     columns,
     rows,
     truncated: !complete,
+    charsPerRow,
   }
 }
 

@@ -254,10 +254,9 @@ export async function importLog(source: LogSource, options: ImportOptions = {}):
   }
   const timeFormat: TimeFormat | 'datetime' = timeColumn.kind === 'datetime' ? 'datetime' : (isTimeFormat(time.unit) ? time.unit : 's')
 
-  // Size the arrays from the sample's bytes per row, with 5 % headroom; they grow if short.
-  const sampleRows = Math.max(1, sample.rows.length)
-  const bytesPerRow = Math.max(8, opened.head.length / (sampleRows + 1 + sample.format.headerLineIndex))
-  const expectedRows = Math.ceil(opened.size / bytesPerRow * 1.05) + 16
+  // Size the arrays from the sample's line length, with 3 % headroom; they grow if short.
+  // (Characters ≈ bytes: logs are ASCII apart from the header's degree signs.)
+  const expectedRows = Math.ceil(opened.size / Math.max(4, sample.charsPerRow) * 1.03) + 16
   const plan: ParsePlan = {
     format: sample.format,
     columnCount: sample.columns.length,

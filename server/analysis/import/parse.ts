@@ -326,8 +326,18 @@ export class FastCsvReader {
   feed(chunk: Uint8Array, final: boolean): void {
     let data = Buffer.isBuffer(chunk) ? chunk : Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength)
     if (this.leftover) {
-      data = Buffer.concat([this.leftover, data])
+      // Complete the carried-over partial line with the head of this chunk only, so a chunk is
+      // never copied whole.
+      const firstNewline = data.indexOf(this.newline)
+      if (firstNewline < 0 && !final) {
+        this.leftover = Buffer.concat([this.leftover, data])
+        return
+      }
+      const headEnd = firstNewline < 0 ? data.length : firstNewline + 1
+      const joined = Buffer.concat([this.leftover, data.subarray(0, headEnd)])
       this.leftover = undefined
+      this.lines(joined, joined.length)
+      data = data.subarray(headEnd)
     }
     let limit = data.length
     if (!final) {
