@@ -10,6 +10,7 @@ export function navigationFor(role: Role): NavItem[] {
   const home: NavItem = { to: '/', label: role === 'driver' ? 'My cars' : 'Overview' }
   const items: NavItem[] = [home]
   if (role !== 'driver') items.push({ to: '/vehicles', label: 'Cars' })
+  if (role === 'owner' || role === 'tuner') items.push({ to: '/logs', label: 'Logs' })
   if (role === 'owner' || role === 'fabricator') items.push({ to: '/cores', label: 'Core catalogue' })
   if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
   items.push({ to: '/account', label: 'My account' })

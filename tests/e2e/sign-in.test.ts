@@ -2,12 +2,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DESKTOP, openBrowser, PHONE, screenshot, signInThroughPage, type Session } from './browser'
 
 const ROLES = [
-  { email: 'owner@kestrel.test', role: 'owner', nav: ['Overview', 'Cars', 'Core catalogue', 'People', 'Workshop & prices'] },
-  { email: 'tuner@kestrel.test', role: 'tuner', nav: ['Overview', 'Cars'] },
+  { email: 'owner@kestrel.test', role: 'owner', nav: ['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices'] },
+  { email: 'tuner@kestrel.test', role: 'tuner', nav: ['Overview', 'Cars', 'Logs'] },
   { email: 'fab@kestrel.test', role: 'fabricator', nav: ['Overview', 'Cars', 'Core catalogue'] },
   { email: 'driver@kestrel.test', role: 'driver', nav: ['My cars'] },
   { email: 'driver2@kestrel.test', role: 'driver', nav: ['My cars'] },
-  { email: 'owner@harbourside.test', role: 'owner', nav: ['Overview', 'People'] },
+  { email: 'owner@harbourside.test', role: 'owner', nav: ['Overview', 'Logs', 'People'] },
   { email: 'driver@harbourside.test', role: 'driver', nav: ['My cars'] },
 ] as const
 
@@ -29,6 +29,7 @@ describe('each demo person signs in and lands on their own home', () => {
     for (const label of nav) await expect(menu.getByRole('link', { name: label, exact: true }).isVisible()).resolves.toBe(true)
     if (role === 'driver') {
       await expect(menu.getByRole('link', { name: 'Cars', exact: true }).count()).resolves.toBe(0)
+      await expect(menu.getByRole('link', { name: 'Logs', exact: true }).count()).resolves.toBe(0)
       await expect(page.getByTestId('logging-cautions').isVisible()).resolves.toBe(true)
     }
     await screenshot(page, `home-${email.replace(/[@.]/g, '-')}`)

@@ -51,8 +51,8 @@ describe('abilities', () => {
 describe('navigation', () => {
   it('offers each role only the places it can use', () => {
     const labels = (role: Role) => navigationFor(role).map(item => item.label)
-    expect(labels('owner')).toEqual(['Overview', 'Cars', 'Core catalogue', 'People', 'Workshop & prices', 'My account'])
-    expect(labels('tuner')).toEqual(['Overview', 'Cars', 'My account'])
+    expect(labels('owner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices', 'My account'])
+    expect(labels('tuner')).toEqual(['Overview', 'Cars', 'Logs', 'My account'])
     expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Core catalogue', 'My account'])
     expect(labels('driver')).toEqual(['My cars', 'My account'])
   })
