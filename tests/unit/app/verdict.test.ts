@@ -1,0 +1,71 @@
+import { describe, expect, it } from 'vitest'
+import { VERDICT_THRESHOLDS, verdictFor } from '../../../utils/verdict'
+import { analysisWith } from '../../fixtures/report'
+
+const diesel = { ratedPowerKw: 110, fuel: 'diesel' }
+
+describe('verdictFor', () => {
+  it('calls a core that barely soaks good and says no change is needed', () => {
+    const v = verdictFor(analysisWith(0.5), diesel)
+    expect(v.level).toBe('good')
+    expect(v.headline).toMatch(/holds up well/)
+    expect(v.consider.join(' ')).toMatch(/No change needed/)
+  })
+
+  it('tells the driver how far the charge air climbed and what the hottest run cost', () => {
+    const v = verdictFor(analysisWith(1.8), diesel)
+    // 40 → 49 °C over six pulls: 1 − 313.15/322.15 = 2.79 %; 2.79 % of 110 kW ≈ 3.1 kW.
+    expect(v.level).toBe('fair')
+    expect(v.summary).toContain('six pulls')
+    expect(v.summary).toContain('9.0 K')
+    expect(v.summary).toMatch(/about 2\.8 % \(about 3\.1 kW\) less power than the coolest/)
+  })
+
+  it('judges a large climb as heavy soak and suggests a bigger core', () => {
+    const v = verdictFor(analysisWith(4), diesel)
+    expect(v.level).toBe('poor')
+    expect(v.consider.join(' ')).toMatch(/larger intercooler core/)
+  })
+
+  it('puts the thresholds between fair and poor where they say', () => {
+    // 4 K steps ⇒ loss at pull 6 = 1 − 313.15/333.15 = 6.0 % > poorLossPct; 0.5 K ⇒ 0.8 % < goodLossPct.
+    expect(VERDICT_THRESHOLDS.goodLossPct).toBeLessThan(VERDICT_THRESHOLDS.poorLossPct)
+    expect(verdictFor(analysisWith(1.2), diesel).level).toBe('fair')
+  })
+
+  it('speaks in the display units: °F differences and horsepower', () => {
+    const v = verdictFor(analysisWith(1.8), diesel, { temperature: 'F', power: 'hp' })
+    expect(v.summary).toContain('16.2 °F')
+    expect(v.summary).toMatch(/4\.1 hp/)
+  })
+
+  it('states what the estimate assumes', () => {
+    const v = verdictFor(analysisWith(1.8), diesel)
+    expect(v.assumptions).toMatch(/air-limited/)
+    expect(v.assumptions).toMatch(/same boost/)
+  })
+
+  it('warns a petrol engine about knock when it soaks', () => {
+    expect(verdictFor(analysisWith(2.5), { ratedPowerKw: 120, fuel: 'petrol' }).consider.join(' ')).toMatch(/knock/)
+    expect(verdictFor(analysisWith(2.5), diesel).consider.join(' ')).not.toMatch(/knock/)
+  })
+
+  it('does not judge a log without pulls, and says how to record one', () => {
+    const v = verdictFor(analysisWith(1, 0), diesel)
+    expect(v.level).toBe('unknown')
+    expect(v.headline).toMatch(/No full-throttle runs/)
+    expect(v.consider[0]).toMatch(/dyno or closed course/)
+  })
+
+  it('needs more than one pull to speak of soak', () => {
+    const v = verdictFor(analysisWith(1, 1), diesel)
+    expect(v.level).toBe('unknown')
+    expect(v.summary).toMatch(/10\.0 K above the outside air/)
+  })
+
+  it('says when the outside temperature was typed in rather than logged', () => {
+    const analysis = analysisWith(1.8)
+    analysis.summary.ambientSource = 'entered'
+    expect(verdictFor(analysis, diesel).assumptions).toMatch(/entered by hand/)
+  })
+})
