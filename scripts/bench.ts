@@ -43,7 +43,7 @@ async function writeLog(path: string, rows: number): Promise<void> {
     const charge = pull ? 42 + 1.5 * (inCycle - 20) : 42 + 10.5 * Math.exp(-(inCycle < 20 ? inCycle + 33 : inCycle - 27) / 10)
     chunk += `${t.toFixed(2)},${Math.round(rpm + 10 * noise())},${(pull ? 100 : 24 + 2 * noise()).toFixed(1)},${(map + noise()).toFixed(1)},${(charge + 0.3 * noise()).toFixed(1)},${(pull ? 140 : 60 + noise()).toFixed(1)},${(31 + 0.2 * noise()).toFixed(1)},${(rpm * 0.028).toFixed(1)}\n`
     if (chunk.length > 1 << 16) {
-      if (!out.write(chunk)) await new Promise(resolve => out.once('drain', resolve))
+      if (!out.write(chunk)) await new Promise<void>(resolve => out.once('drain', () => resolve()))
       chunk = ''
     }
   }

@@ -48,6 +48,8 @@ export interface ColumnInfo {
   numericShare: number
   /** Share of sample rows with an empty cell (0–1); high on sparse round-robin logs. */
   emptyShare: number
+  /** Number of sample cells that read as numbers (or times). */
+  numericCount: number
   /** Median of the numeric sample values, in the column's own unit (NaN if none). */
   median: number
   min: number
@@ -319,6 +321,7 @@ function describeColumn(index: number, header: string, cells: readonly string[],
     kind,
     samples,
     numericShare,
+    numericCount: values.length,
     emptyShare: cells.length === 0 ? 1 : empty / cells.length,
     median: quantile(sorted, 0.5),
     min: sorted[0] ?? Number.NaN,
@@ -345,6 +348,9 @@ export function analyseSample(text: string, encoding: SourceEncoding, bom: boole
   const body = lines.slice(headerLineIndex, headerLineIndex + SAMPLE_ROWS + 1)
   const delimiter = detectDelimiter(body)
   const header = splitCells(body[0]!, delimiter)
+  // A header written with a trailing delimiter too ends in an empty name: not a column.
+  const headerTrailing = header.length > 1 && header[header.length - 1]!.trim() === ''
+  if (headerTrailing) header.pop()
   const dataLines = body.slice(1).filter(line => line.trim() !== '')
   if (dataLines.length === 0 && complete) {
     throw new LogImportError('HEADER_ONLY',
@@ -362,7 +368,7 @@ export function analyseSample(text: string, encoding: SourceEncoding, bom: boole
   for (const row of rows) {
     if (row.length === header.length + 1 && row[row.length - 1]!.trim() === '') trailing++
   }
-  const trailingDelimiter = rows.length > 0 && trailing > rows.length / 2
+  const trailingDelimiter = headerTrailing || (rows.length > 0 && trailing > rows.length / 2)
   const decimalComma = delimiter !== ',' && looksLikeDecimalComma(rows)
   const columns = header.map((cell, index) => describeColumn(index, cell, rows.map(row => row[index] ?? ''), decimalComma))
   const seen = new Map<string, number>()

@@ -182,7 +182,7 @@ function timeCandidate(column: ColumnInfo, position: number): Candidate | undefi
     if (score === 0) return undefined
     unit = guessNumericTimeFormat(column)
     // A time column rises: no positive step at all in the sample means it is something else.
-    if (!Number.isFinite(column.medianStep)) score *= 0.3
+    if (!Number.isFinite(column.medianStep) && column.numericCount >= 3) score *= 0.3
   }
   else {
     return undefined
