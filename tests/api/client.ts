@@ -1,4 +1,6 @@
 import { randomUUID } from 'node:crypto'
+import { existsSync, readdirSync } from 'node:fs'
+import { join } from 'node:path'
 import { fetch as testFetch, setup } from '@nuxt/test-utils/e2e'
 import Database from 'better-sqlite3'
 import { inject } from 'vitest'
@@ -29,6 +31,27 @@ export class Client {
     const response = await testFetch(path, { method, headers, body: body === undefined ? undefined : JSON.stringify(body), redirect: 'manual' })
     const setCookie = response.headers.get('set-cookie')
     if (setCookie) this.cookie = setCookie.split(';')[0]!
+    const text = await response.text()
+    let parsed: unknown = text
+    try {
+      parsed = text ? JSON.parse(text) : null
+    }
+    catch {
+      // not JSON: keep the text
+    }
+    return { status: response.status, body: parsed as T, headers: response.headers }
+  }
+
+  // multipart/form-data, as the upload page sends it.
+  async upload<T = unknown>(path: string, fields: Record<string, string | number | undefined>, file?: { name: string, content: string | Uint8Array }): Promise<Reply<T>> {
+    const form = new FormData()
+    for (const [key, value] of Object.entries(fields)) {
+      if (value !== undefined) form.append(key, String(value))
+    }
+    if (file) form.append('file', new Blob([file.content]), file.name)
+    const headers: Record<string, string> = { 'x-forwarded-for': this.address }
+    if (this.cookie) headers.cookie = this.cookie
+    const response = await testFetch(path, { method: 'POST', headers, body: form })
     const text = await response.text()
     let parsed: unknown = text
     try {
@@ -77,6 +100,14 @@ export function readDatabase<T>(fn: (db: Database.Database) => T): T {
   finally {
     db.close()
   }
+}
+
+// What a failed request must not leave behind: rows in the log tables and files in the uploads folder.
+export function logFootprint() {
+  const rows = readDatabase(db => ['logs', 'analyses'].map(table => (db.prepare(`select count(*) n from ${table}`).get() as { n: number }).n))
+  const folder = join(inject('dataDir'), 'uploads', 'logs')
+  const files = existsSync(folder) ? readdirSync(folder).length : 0
+  return { logs: rows[0], analyses: rows[1], files }
 }
 
 // The token of the newest link e-mailed to an address (the outbox holds every message).

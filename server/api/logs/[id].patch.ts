@@ -1,0 +1,68 @@
+import { eq } from 'drizzle-orm'
+import { z } from 'zod'
+import { analyseLog, type AnalysisResult, type PullEdits } from '../../analysis'
+
+const nullableNumber = (label: string, min: number, max: number, unit: string) =>
+  z.number({ message: `${label} must be a number` }).min(min, `${label} must be between ${min} and ${max} ${unit}`).max(max, `${label} must be between ${min} and ${max} ${unit}`).nullable().optional()
+
+const window = z.object({ startS: z.number().min(0), endS: z.number().min(0) }).refine(w => w.endS > w.startS, 'a pull ends after it starts')
+
+const body = z.object({
+  notes: z.string().max(5000).optional(),
+  ambientTempC: nullableNumber('ambientTempC', -40, 60, '°C'),
+  altitudeM: nullableNumber('altitudeM', -500, 6000, 'm'),
+  baroKpa: nullableNumber('baroKpa', 50, 110, 'kPa'),
+  humidityPct: nullableNumber('humidityPct', 0, 100, '%'),
+  pullEdits: z.object({
+    add: z.array(window).max(50).optional(),
+    remove: z.array(z.number().int().min(0)).max(200).optional(),
+    adjust: z.array(z.object({ index: z.number().int().min(0), startS: z.number().min(0).optional(), endS: z.number().min(0).optional() })).max(200).optional(),
+  }).strict().optional(),
+}).strict()
+
+export default defineEventHandler(async (event) => {
+  const actor = await requireActor(event)
+  const { id } = readParamsWith(event, idParams)
+  const { log, vehicle } = findVisibleLog(actor, id)
+  if (!canEditLog(actor, vehicle)) forbidden('Your role can read this log but not change it.')
+  const changes = await readBodyWith(event, body)
+
+  const conditions = { ...log.conditions }
+  for (const key of ['ambientTempC', 'altitudeM', 'baroKpa', 'humidityPct'] as const) {
+    if (changes[key] !== undefined) conditions[key] = changes[key]
+  }
+  const pullEdits = (changes.pullEdits ?? log.pullEdits) as PullEdits
+  const reanalyse = changes.pullEdits !== undefined || ['ambientTempC', 'altitudeM', 'baroKpa', 'humidityPct'].some(key => key in changes)
+
+  let analysis: AnalysisResult | undefined
+  if (reanalyse) {
+    const imported = await loadImported({ ...log, conditions })
+    try {
+      analysis = analyseLog(imported, {
+        ambientTempC: conditions.ambientTempC ?? undefined,
+        altitudeM: conditions.altitudeM ?? undefined,
+        baroKpa: conditions.baroKpa ?? undefined,
+        humidityPct: conditions.humidityPct ?? undefined,
+        ratedPowerKw: vehicle.ratedPowerKw ?? undefined,
+        pullEdits,
+      })
+    }
+    catch (error) {
+      asHttpError(error)
+    }
+  }
+
+  const updated = useDb().transaction((tx) => {
+    const row = tx.update(tables.logs).set({
+      ...(changes.notes !== undefined ? { notes: changes.notes } : {}),
+      conditions: cleanConditions(conditions),
+      pullEdits: pullEdits as Record<string, unknown>,
+    }).where(eq(tables.logs.id, log.id)).returning().get()
+    if (analysis) {
+      tx.update(tables.analyses).set({ result: analysis as unknown as Record<string, unknown>, engineVersion: ENGINE_VERSION, createdAt: new Date() }).where(eq(tables.analyses.logId, log.id)).run()
+    }
+    recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: reanalyse ? 'reanalysed' : 'updated', entity: 'log', entityId: log.id, detail: { fields: Object.keys(changes) } })
+    return row
+  })
+  return logDetail(updated, vehicle)
+})
