@@ -48,7 +48,7 @@ export class Client {
     for (const [key, value] of Object.entries(fields)) {
       if (value !== undefined) form.append(key, String(value))
     }
-    if (file) form.append('file', new Blob([file.content]), file.name)
+    if (file) form.append('file', new Blob([typeof file.content === 'string' ? file.content : new Uint8Array(file.content)]), file.name)
     const headers: Record<string, string> = { 'x-forwarded-for': this.address }
     if (this.cookie) headers.cookie = this.cookie
     const response = await testFetch(path, { method: 'POST', headers, body: form })
@@ -104,10 +104,10 @@ export function readDatabase<T>(fn: (db: Database.Database) => T): T {
 
 // What a failed request must not leave behind: rows in the log tables and files in the uploads folder.
 export function logFootprint() {
-  const rows = readDatabase(db => ['logs', 'analyses'].map(table => (db.prepare(`select count(*) n from ${table}`).get() as { n: number }).n))
+  const count = (table: string) => readDatabase(db => (db.prepare(`select count(*) n from ${table}`).get() as { n: number }).n)
   const folder = join(inject('dataDir'), 'uploads', 'logs')
   const files = existsSync(folder) ? readdirSync(folder).length : 0
-  return { logs: rows[0], analyses: rows[1], files }
+  return { logs: count('logs'), analyses: count('analyses'), files }
 }
 
 // The token of the newest link e-mailed to an address (the outbox holds every message).
