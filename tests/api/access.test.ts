@@ -278,3 +278,29 @@ describe('workshop prices and overview', () => {
     expect(driver.body.vehicles).toBeLessThan(owner.body.vehicles)
   })
 })
+
+describe('my account and the workshop record', () => {
+  it.each([
+    ['anonymous', 401], ['owner', 200], ['tuner', 200], ['fabricator', 200], ['driver', 200],
+  ] as const)('GET /api/workshop and /api/overview: %s → %i', async (who, status) => {
+    expect((await clients[who].get('/api/workshop')).status).toBe(status)
+    expect((await clients[who].get('/api/overview')).status).toBe(status)
+  })
+
+  it.each([
+    ['anonymous', 401], ['owner', 200], ['tuner', 200], ['fabricator', 200], ['driver', 403],
+  ] as const)('GET /api/cores: %s → %i', async (who, status) => {
+    expect((await clients[who].get('/api/cores')).status).toBe(status)
+  })
+
+  it('keeps each person\'s display units, and refuses units it does not know', async () => {
+    const saved = await clients.driver2.patch<{ user: { preferences: Record<string, string> } }>('/api/me', { preferences: { temperature: 'F', power: 'PS' } })
+    expect(saved.status).toBe(200)
+    expect((await clients.driver2.get<{ user: { preferences: Record<string, string> } }>('/api/me')).body.user.preferences).toMatchObject({ temperature: 'F', power: 'PS' })
+    const wrong = await clients.driver2.patch<{ message: string }>('/api/me', { preferences: { temperature: 'K' } })
+    expect(wrong.status).toBe(400)
+    expect(wrong.body.message).toMatch(/temperature/)
+    expect((await clients.anonymous.patch('/api/me', { name: 'x' })).status).toBe(401)
+    await clients.driver2.patch('/api/me', { preferences: { temperature: 'C', power: 'kW' } })
+  })
+})
