@@ -2,9 +2,9 @@
 // and components never import from server/. Values stay SI (°C, K, kPa, kW, %); display units are
 // chosen at the edge by the units store.
 
-export type ChannelId =
-  | 'time' | 'rpm' | 'throttle' | 'pedal' | 'manifoldPressure' | 'boost' | 'baro'
-  | 'chargeTemp' | 'preCoolerTemp' | 'ambientTemp' | 'speed' | 'massAirFlow' | 'humidity'
+export type ChannelId
+  = | 'time' | 'rpm' | 'throttle' | 'pedal' | 'manifoldPressure' | 'boost' | 'baro'
+    | 'chargeTemp' | 'preCoolerTemp' | 'ambientTemp' | 'speed' | 'massAirFlow' | 'humidity'
 
 export type MappingSource = 'auto' | 'explicit' | 'entered' | 'isa'
 export type UnitSource = 'header' | 'values' | 'guessed' | 'explicit'

@@ -179,4 +179,3 @@ export function mergeDetail(overview: DownsampleResult, detail: DownsampleResult
     }),
   }
 }
-

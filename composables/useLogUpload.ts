@@ -1,0 +1,56 @@
+import type { LogDetail } from '#shared/types/report'
+
+export type UploadPhase = 'idle' | 'uploading' | 'analysing' | 'done' | 'failed'
+
+// The upload goes through XMLHttpRequest because fetch cannot report upload progress. Once the
+// last byte is sent the server parses and analyses the file: that is the "analysing" phase.
+export function useLogUpload() {
+  const phase = ref<UploadPhase>('idle')
+  const progress = ref(0)
+  const error = ref('')
+
+  function send(form: FormData): Promise<LogDetail | null> {
+    phase.value = 'uploading'
+    progress.value = 0
+    error.value = ''
+    return new Promise((resolve) => {
+      const xhr = new XMLHttpRequest()
+      xhr.open('POST', '/api/logs')
+      xhr.responseType = 'json'
+      xhr.setRequestHeader('Accept', 'application/json')
+      xhr.upload.onprogress = (event) => {
+        if (event.lengthComputable) progress.value = Math.min(1, event.loaded / event.total)
+      }
+      xhr.upload.onload = () => {
+        progress.value = 1
+        phase.value = 'analysing'
+      }
+      xhr.onload = () => {
+        const body = xhr.response as (LogDetail & { message?: string }) | null
+        if (xhr.status === 201 || xhr.status === 200) {
+          phase.value = 'done'
+          resolve(body)
+          return
+        }
+        phase.value = 'failed'
+        error.value = body?.message || uploadStatusMessage(xhr.status)
+        resolve(null)
+      }
+      xhr.onerror = () => {
+        phase.value = 'failed'
+        error.value = 'The upload was interrupted. Check your connection and try again.'
+        resolve(null)
+      }
+      xhr.send(form)
+    })
+  }
+
+  return { phase, progress, error, send }
+}
+
+export function uploadStatusMessage(status: number): string {
+  if (status === 413) return 'The file is too large for the server. Trim the log to the session with the hard runs and try again.'
+  if (status === 415) return 'The server does not accept this kind of file. Export the log as CSV or text and try again.'
+  if (status === 401) return 'Your session has ended. Sign in again and upload the log once more.'
+  return `The server could not take the log (error ${status}). Try again in a moment.`
+}
