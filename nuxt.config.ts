@@ -13,7 +13,6 @@ export default defineNuxtConfig({
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
     },
   },
-  css: ['~/assets/css/main.css'],
   // Defaults only: each key is overridden at run time by its NUXT_* variable
   // (DATABASE_URL and UPLOADS_DIR are also honoured, see server/utils/config.ts).
   runtimeConfig: {
@@ -43,5 +42,9 @@ export default defineNuxtConfig({
   telemetry: false,
   eslint: {
     config: { stylistic: true },
+  },
+  // Our stylesheet carries the @tailwind layers, the font and the base element styles.
+  tailwindcss: {
+    cssPath: '~/assets/css/main.css',
   },
 })
