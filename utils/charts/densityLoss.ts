@@ -20,8 +20,8 @@ export function densityLossOption(input: DensityLossInput): EChartsOption {
   return {
     animation: input.animation ?? false,
     textStyle: { fontFamily: CHART_FONT, color: CHART_PALETTE.ink },
-    grid: { left: 48, right: 48, top: 48, bottom: 32 },
-    legend: { top: 0, left: 0, textStyle: { fontSize: 12 } },
+    grid: { left: 48, right: 48, top: 72, bottom: 32 },
+    legend: { type: 'scroll', top: 0, left: 0, right: 0, textStyle: { fontSize: 12 } },
     tooltip: { trigger: 'axis' },
     xAxis: { type: 'category', data: pulls.map(p => pullName(p.index)), axisLine: { lineStyle: { color: CHART_PALETTE.line } } },
     yAxis: [

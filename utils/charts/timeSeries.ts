@@ -114,9 +114,10 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
     animation: input.animation ?? false,
     textStyle: { fontFamily: CHART_FONT, color: CHART_PALETTE.ink },
     color: [CHART_PALETTE.charge, CHART_PALETTE.preCooler, CHART_PALETTE.ambient, CHART_PALETTE.pressure, CHART_PALETTE.rpm],
-    grid: { left: 56, right: 96, top: 48, bottom: 72 },
-    legend: { top: 0, left: 0, itemGap: 12, textStyle: { fontSize: 12 } },
-    tooltip: { trigger: 'axis', axisPointer: { type: 'line' }, valueFormatter: v => (typeof v === 'number' ? String(round(v, 1)) : '—') },
+    grid: { left: 48, right: 96, top: 64, bottom: 64 },
+    // One scrolling line, so a narrow phone screen never pushes the legend onto the axis names.
+    legend: { type: 'scroll', top: 0, left: 0, right: 0, itemGap: 12, textStyle: { fontSize: 12 } },
+    tooltip: { trigger: 'axis', axisPointer: { type: 'line', label: { formatter: ({ value }) => `${round(Number(value), 1)} s` } }, valueFormatter: v => (typeof v === 'number' ? String(round(v, 1)) : '—') },
     xAxis: {
       type: 'value',
       name: 'Time (s)',
