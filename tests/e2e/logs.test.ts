@@ -144,6 +144,19 @@ describe('the tuner corrects a mapping and saves it as a profile', () => {
       await page.getByTestId('sort-powerLossVsCoolestPct').click()
       expect(await firstRun()).toBe('1')
 
+      // Printing hides the menu and the buttons.
+      await page.emulateMedia({ media: 'print' })
+      await expect(page.getByRole('navigation', { name: 'Main' }).isVisible()).resolves.toBe(false)
+      await expect(page.getByTestId('share-panel').isVisible()).resolves.toBe(false)
+      await screenshot(page, 'logs-tuner-report-print')
+      await page.emulateMedia({ media: 'screen' })
+
+      // A run the tuner does not count: the server analyses again without it.
+      page.once('dialog', dialog => dialog.accept())
+      await page.getByTestId('remove-pull-0').click()
+      await page.waitForFunction(() => document.querySelectorAll('[data-testid="pull-row"]').length === 5, undefined, { timeout: 15_000 })
+      await expect(page.getByTestId('summary-pulls').textContent()).resolves.toMatch(/^\s*Full-throttle runs\s*5/)
+
       // The same logger again: the profile is offered and fills the columns.
       await page.goto('/logs/new')
       await page.getByTestId('upload-file-input').setInputFiles(file)

@@ -15,6 +15,8 @@ export interface TimeSeriesInput {
   /** Visible window, s (dataZoom); the whole log when absent. */
   window?: { fromS: number, toS: number } | null
   animation?: boolean
+  /** Narrow screen: engine speed keeps its line but not its own axis labels, to leave room for the plot. */
+  compact?: boolean
 }
 
 const TEMPERATURE_CHANNELS: Partial<Record<ChannelId, { name: string, color: string }>> = {
@@ -114,7 +116,7 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
     animation: input.animation ?? false,
     textStyle: { fontFamily: CHART_FONT, color: CHART_PALETTE.ink },
     color: [CHART_PALETTE.charge, CHART_PALETTE.preCooler, CHART_PALETTE.ambient, CHART_PALETTE.pressure, CHART_PALETTE.rpm],
-    grid: { left: 48, right: 96, top: 64, bottom: 64 },
+    grid: { left: 40, right: input.compact ? 44 : 96, top: 64, bottom: 64 },
     // One scrolling line, so a narrow phone screen never pushes the legend onto the axis names.
     legend: { type: 'scroll', top: 0, left: 0, right: 0, itemGap: 12, textStyle: { fontSize: 12 } },
     tooltip: { trigger: 'axis', axisPointer: { type: 'line', label: { formatter: ({ value }) => `${round(Number(value), 1)} s` } }, valueFormatter: v => (typeof v === 'number' ? String(round(v, 1)) : '—') },
@@ -131,7 +133,7 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
     yAxis: [
       { type: 'value', name: temperatureSymbol(units.temperature), scale: true, position: 'left', splitLine: { lineStyle: { color: CHART_PALETTE.line } } },
       { type: 'value', name: pressureUnit, scale: true, position: 'right', splitLine: { show: false }, axisLabel: { formatter: (v: number) => String(round(v, pressureUnit === 'bar' ? 2 : 0)) } },
-      { type: 'value', name: 'rpm', scale: true, position: 'right', offset: 48, splitLine: { show: false } },
+      { type: 'value', name: 'rpm', scale: true, position: 'right', offset: 48, show: !input.compact, splitLine: { show: false } },
     ],
     dataZoom: [
       { type: 'inside', xAxisIndex: 0, filterMode: 'none', ...zoomRange },

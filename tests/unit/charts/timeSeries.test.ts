@@ -61,6 +61,14 @@ describe('timeSeriesOption', () => {
     expect(whole.dataZoom).toEqual(expect.arrayContaining([expect.objectContaining({ type: 'inside', start: 0, end: 100 })]))
   })
 
+  it('leaves the engine-speed axis out on a narrow screen, widening the plot', () => {
+    const wide = timeSeriesOption(base)
+    const narrow = timeSeriesOption({ ...base, compact: true })
+    expect((wide.yAxis as { show?: boolean }[])[2]!.show).toBe(true)
+    expect((narrow.yAxis as { show?: boolean }[])[2]!.show).toBe(false)
+    expect((narrow.grid as { right: number }).right).toBeLessThan((wide.grid as { right: number }).right)
+  })
+
   it('has animation off unless asked', () => {
     expect(timeSeriesOption(base).animation).toBe(false)
     expect(timeSeriesOption({ ...base, animation: true }).animation).toBe(true)
