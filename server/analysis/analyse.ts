@@ -53,6 +53,8 @@ export interface PullResult {
   endS: number
   durationS: number
   origin: PullOrigin
+  /** Index among the automatically detected pulls, as pull edits name them (null for an added pull). */
+  autoIndex: number | null
   meanChargeTempC: number
   peakChargeTempC: number
   ambientTempC: number
@@ -303,6 +305,7 @@ export function analyseLog(input: LogChannels | ImportedLog, options: AnalyseOpt
       endS: round(pull.window.endS, 3),
       durationS: round(pull.window.endS - pull.window.startS, 3),
       origin: pull.window.origin,
+      autoIndex: pull.window.autoIndex,
       meanChargeTempC: round(pull.chargeMeanK - KELVIN_OFFSET, 2),
       peakChargeTempC: round(pull.chargeMaxK - KELVIN_OFFSET, 2),
       ambientTempC: round(pull.ambientK - KELVIN_OFFSET, 2),

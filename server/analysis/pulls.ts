@@ -34,6 +34,8 @@ export interface PullWindow {
   startS: number
   endS: number
   origin: PullOrigin
+  /** Index among the automatically detected pulls (what remove/adjust edits name); null for added pulls. */
+  autoIndex: number | null
 }
 
 export interface PullEdits {
@@ -66,7 +68,7 @@ export function detectPulls(channels: LogChannels, options: Partial<PullOptions>
   let lastHigh = -1
   const close = () => {
     if (start >= 0 && t[lastHigh]! - t[start]! >= o.minDurationS) {
-      windows.push({ startIndex: start, endIndex: lastHigh + 1, startS: t[start]!, endS: t[lastHigh]!, origin: 'auto' })
+      windows.push({ startIndex: start, endIndex: lastHigh + 1, startS: t[start]!, endS: t[lastHigh]!, origin: 'auto', autoIndex: windows.length })
     }
     start = -1
   }
@@ -87,10 +89,10 @@ export function detectPulls(channels: LogChannels, options: Partial<PullOptions>
   return { windows, loadChannel, maxLoadPct: Number.isFinite(maxLoadPct) ? maxLoadPct : Number.NaN }
 }
 
-function windowFromTimes(timeS: Float64Array, startS: number, endS: number, origin: PullOrigin): PullWindow {
+function windowFromTimes(timeS: Float64Array, startS: number, endS: number, origin: PullOrigin, autoIndex: number | null): PullWindow {
   const startIndex = lowerBound(timeS, startS)
   const endIndex = lowerBound(timeS, endS + 1e-9)
-  return { startIndex, endIndex, startS: timeS[startIndex] ?? startS, endS: timeS[Math.max(startIndex, endIndex - 1)] ?? endS, origin }
+  return { startIndex, endIndex, startS: timeS[startIndex] ?? startS, endS: timeS[Math.max(startIndex, endIndex - 1)] ?? endS, origin, autoIndex }
 }
 
 function checkSpan(timeS: Float64Array, startS: unknown, endS: unknown, what: string): asserts startS is number {
@@ -131,11 +133,11 @@ export function applyPullEdits(timeS: Float64Array, auto: readonly PullWindow[],
     const startS = change.startS ?? window.startS
     const endS = change.endS ?? window.endS
     checkSpan(timeS, startS, endS, `Adjust pull ${index}`)
-    result.push(windowFromTimes(timeS, startS, endS, 'adjusted'))
+    result.push(windowFromTimes(timeS, startS, endS, 'adjusted', index))
   })
   for (const add of edits.add ?? []) {
     checkSpan(timeS, add.startS, add.endS, 'Add pull')
-    result.push(windowFromTimes(timeS, add.startS, add.endS, 'added'))
+    result.push(windowFromTimes(timeS, add.startS, add.endS, 'added', null))
   }
   return result.filter(w => w.endIndex > w.startIndex).sort((a, b) => a.startS - b.startS)
 }

@@ -155,6 +155,8 @@ export interface PullResult {
   endS: number
   durationS: number
   origin: PullOrigin
+  /** Index among the automatically detected pulls, as pull edits name them (null for an added pull). */
+  autoIndex: number | null
   meanChargeTempC: number
   peakChargeTempC: number
   ambientTempC: number

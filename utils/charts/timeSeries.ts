@@ -127,6 +127,8 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
       nameGap: 26,
       min: data.fromS,
       max: data.toS,
+      // The ends are real sample times (e.g. 4837.853999 s): label them as whole seconds.
+      axisLabel: { formatter: (v: number) => Math.round(v).toLocaleString('en-GB') },
       axisLine: { lineStyle: { color: CHART_PALETTE.line } },
       splitLine: { show: false },
     },

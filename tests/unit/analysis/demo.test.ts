@@ -82,6 +82,9 @@ describe('pull edits', () => {
     expect(edited.pulls[1]!.origin).toBe('adjusted')
     expect(edited.pulls[1]!.startS).toBeCloseTo(first.startS + 1, 1)
     expect(edited.pulls.map(p => p.index)).toEqual([0, 1, 2, 3, 4, 5])
+    // Each pull still names its automatic index, which later edits refer to; an added pull has none.
+    expect(edited.pulls.map(p => p.autoIndex)).toEqual([null, 0, 1, 2, 3, 4])
+    expect(result.pulls.map(p => p.autoIndex)).toEqual([0, 1, 2, 3, 4, 5])
   })
 
   it('rejects edits that point nowhere, with a message', async () => {

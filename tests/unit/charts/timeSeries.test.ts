@@ -27,6 +27,12 @@ describe('timeSeriesOption', () => {
     expect((option.yAxis as { name: string }[])[1]!.name).toBe('psi')
   })
 
+  it('labels the time axis in whole seconds, even at a ragged last sample', () => {
+    const option = timeSeriesOption({ ...base, data: { ...seriesFixture(), toS: 4837.853999999999 } })
+    const formatter = (option.xAxis as { axisLabel: { formatter: (v: number) => string } }).axisLabel.formatter
+    expect(formatter(4837.853999999999)).toBe('4,838')
+  })
+
   it('gives boost and engine speed their own axes', () => {
     const series = seriesOf(timeSeriesOption(base))
     expect(series.find(s => s.name === 'Manifold pressure')!.yAxisIndex).toBe(1)
