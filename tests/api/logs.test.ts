@@ -243,12 +243,16 @@ describe('shared links', () => {
     expect(shared.body.analysis.summary.pullCount).toBeGreaterThan(0)
     expect(shared.body.log).not.toHaveProperty('mapping')
     expect((await new Client().get(`/api/shared/${token}/series?channels=chargeTemp&points=20`)).status).toBe(200)
+    const whatIf = await new Client().get<{ pulls: unknown[] }>(`/api/shared/${token}/what-if?ambientC=35`)
+    expect(whatIf.status).toBe(200)
+    expect(whatIf.body.pulls.length).toBe(shared.body.analysis.summary.pullCount)
     const mailed = readDatabase(db => db.prepare('select to_email from outbox where kind = \'report-share\' order by id desc limit 1').get() as { to_email: string })
     expect(mailed.to_email).toBe('driver@kestrel.test')
 
     expect((await clients.foreignOwner.delete(`/api/share-links/${created.body.id}`)).status).toBe(404)
     expect((await clients.tuner.delete(`/api/share-links/${created.body.id}`)).status).toBe(204)
     expect((await new Client().get(`/api/shared/${token}`)).status).toBe(404)
+    expect((await new Client().get(`/api/shared/${token}/what-if?ambientC=35`)).status).toBe(404)
   })
 
   it('is for the tuner and the owner only', async () => {
