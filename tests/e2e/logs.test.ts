@@ -216,3 +216,36 @@ describe('a real log without an outside temperature, shared with the driver', ()
     }
   })
 })
+
+describe('the real turbo-diesel log with engine stops', () => {
+  const diesel = resolve(import.meta.dirname, '..', '..', '..', 'shared', 'data', 'real', 'obd-turbodiesel-winter-2018-03-01.csv')
+
+  it('uploads through the page and marks the engine-off artefacts instead of calling them heat soak', async () => {
+    const browser = await openBrowser(DESKTOP)
+    try {
+      const { page } = browser
+      await signInThroughPage(page, 'tuner@kestrel.test')
+      await page.getByTestId('home-tuner').waitFor()
+      await page.goto('/logs/new')
+      await page.getByTestId('upload-vehicle').selectOption({ index: 1 })
+      await page.getByTestId('upload-file-input').setInputFiles(diesel)
+      await page.getByTestId('mapping-form').waitFor()
+      // The diesel's throttle flap never reaches full: the pedal is what marks a run.
+      await expect(page.getByTestId('mapping-column-pedal').inputValue()).resolves.toMatch(/Accelerator Pedal Position/)
+      // The log has its own outside temperature: no question about it.
+      await expect(page.getByTestId('ambient-prompt').count()).resolves.toBe(0)
+      await page.getByTestId('upload-submit').click()
+      await page.getByTestId('log-report').waitFor({ timeout: 50_000 })
+      const quality = page.getByTestId('report-quality')
+      await quality.waitFor()
+      const text = await quality.textContent()
+      expect(text).toMatch(/Engine off/)
+      expect(text).toMatch(/Settling after restart/)
+      await page.getByTestId('time-chart-canvas').waitFor()
+      await screenshot(page, 'logs-tuner-real-diesel-report')
+    }
+    finally {
+      await browser.close()
+    }
+  })
+})

@@ -45,13 +45,25 @@ async function waitUntilUp(url: string, child: ChildProcess, log: () => string) 
   throw new Error(`The test server did not answer within 60 s:\n${log()}`)
 }
 
-export default async function setup(project: TestProject) {
+export interface RunningServer {
+  baseUrl: string
+  dataDir: string
+  stop: () => Promise<void>
+}
+
+export function ensureBuilt() {
   const entry = join(root, '.output', 'server', 'index.mjs')
   if (!existsSync(entry)) {
     const build = spawnSync(process.execPath, [join(root, 'node_modules', 'nuxt', 'bin', 'nuxt.mjs'), 'build'], { cwd: root, stdio: 'inherit' })
     if (build.status !== 0) throw new Error('nuxt build failed')
   }
-  const dataDir = mkdtempSync(join(tmpdir(), `densitas-${project.name}-`))
+  return entry
+}
+
+// Start the built server on a free port with its own temporary database and uploads folder.
+export async function startServer(name: string, env: Record<string, string> = {}): Promise<RunningServer> {
+  const entry = ensureBuilt()
+  const dataDir = mkdtempSync(join(tmpdir(), `densitas-${name}-`))
   const port = await freePort()
   const baseUrl = `http://127.0.0.1:${port}`
   let output = ''
@@ -69,6 +81,7 @@ export default async function setup(project: TestProject) {
       // Tests pose as different clients through X-Forwarded-For to exercise the per-address limit.
       NUXT_TRUST_PROXY: 'true',
       NUXT_PUBLIC_APP_URL: baseUrl,
+      ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   })
@@ -79,12 +92,20 @@ export default async function setup(project: TestProject) {
     output += chunk
   })
   await waitUntilUp(baseUrl, child, () => output)
-  project.provide('baseUrl', baseUrl)
-  project.provide('dataDir', dataDir)
-
-  return async () => {
-    child.kill('SIGTERM')
-    await new Promise(r => child.exitCode !== null ? r(null) : child.once('exit', r))
-    rmSync(dataDir, { recursive: true, force: true })
+  return {
+    baseUrl,
+    dataDir,
+    stop: async () => {
+      child.kill('SIGTERM')
+      await new Promise(r => child.exitCode !== null ? r(null) : child.once('exit', r))
+      rmSync(dataDir, { recursive: true, force: true })
+    },
   }
+}
+
+export default async function setup(project: TestProject) {
+  const server = await startServer(project.name)
+  project.provide('baseUrl', server.baseUrl)
+  project.provide('dataDir', server.dataDir)
+  return server.stop
 }
