@@ -1,64 +1,32 @@
-// Report-facing shapes of the logs API, mirrored from the analysis engine (server/analysis) so pages
-// and components never import from server/. Values stay SI (°C, K, kPa, kW, %); display units are
-// chosen at the edge by the units store.
+// Shapes of the logs API for pages and components. What the analysis engine returns is typed
+// once, in the engine (server/analysis), and re-exported here as types only: nothing from the
+// server reaches the client bundle, and the client cannot drift from the engine's JSON.
+// Values stay SI (°C, K, kPa, kW, %); display units are chosen at the edge by the units store.
 
-export type ChannelId
-  = | 'time' | 'rpm' | 'throttle' | 'pedal' | 'manifoldPressure' | 'boost' | 'baro'
-    | 'chargeTemp' | 'preCoolerTemp' | 'ambientTemp' | 'speed' | 'massAirFlow' | 'humidity'
+import type { AnalysisResult, ChannelId, ColumnInfo, DetectedFormat, LogMapping, MappingInput, PullEdits } from '../../server/analysis'
 
-export type MappingSource = 'auto' | 'explicit' | 'entered' | 'isa'
-export type UnitSource = 'header' | 'values' | 'guessed' | 'explicit'
-
-export interface MappedChannel {
-  column?: string
-  unit: string
-  value?: number
-  confidence: number
-  source: MappingSource
-  unitSource: UnitSource
-  altitudeM?: number
-}
-
-export type LogMapping = Partial<Record<ChannelId, MappedChannel>>
-
-/** One entry of the mapping JSON sent with an upload or saved in a profile. */
-export interface MappingEntryInput {
-  column?: string
-  unit?: string
-  value?: number
-}
-export type MappingInput = Partial<Record<ChannelId, MappingEntryInput | null>>
-
-export type ColumnKind = 'numeric' | 'numeric-with-unit' | 'clock' | 'datetime' | 'empty' | 'text'
-
-export interface ColumnInfo {
-  index: number
-  header: string
-  name: string
-  unitText?: string
-  unit?: string
-  unitFromValues?: boolean
-  kind: ColumnKind
-  samples: string[]
-  numericShare: number
-  emptyShare: number
-  median: number
-  min: number
-  max: number
-  medianStep: number
-}
-
-export interface DetectedFormat {
-  encoding: string
-  bom: boolean
-  delimiter: ',' | ';' | '\t'
-  decimalComma: boolean
-  lineEnding: string
-  headerLineIndex: number
-  trailingDelimiter: boolean
-  quoted: boolean
-  repairedEncoding: boolean
-}
+export type {
+  AnalysisResult,
+  AnalysisSummary,
+  ChannelId,
+  ColumnInfo,
+  DetectedFormat,
+  DownsampleResult,
+  LogMapping,
+  MappedChannel,
+  MappingEntryInput,
+  MappingInput,
+  MaskReason,
+  MaskSpan,
+  PullEdits,
+  PullOrigin,
+  PullResult,
+  Series,
+  SoakProjection,
+} from '../../server/analysis'
+export type { ColumnKind } from '../../server/analysis/import/detect'
+export type { MappingSource, UnitSource } from '../../server/analysis/import/mapping'
+export type { WhatIfResult } from '../../server/analysis/whatif'
 
 export interface CodedMessage {
   code: string
@@ -86,12 +54,6 @@ export interface DetectResponse {
   needsBaro: boolean
   warnings: CodedMessage[]
   profile: LogProfile | null
-}
-
-export interface PullEdits {
-  add?: { startS: number, endS: number }[]
-  remove?: number[]
-  adjust?: { index: number, startS?: number, endS?: number }[]
 }
 
 export interface LogConditions {
@@ -145,110 +107,6 @@ export interface LogListItem {
     soakIndexKPerPull: number | null
     meanEffectiveness: number | null
   }
-}
-
-export type PullOrigin = 'auto' | 'added' | 'adjusted'
-
-export interface PullResult {
-  index: number
-  startS: number
-  endS: number
-  durationS: number
-  origin: PullOrigin
-  /** Index among the automatically detected pulls, as pull edits name them (null for an added pull). */
-  autoIndex: number | null
-  meanChargeTempC: number
-  peakChargeTempC: number
-  ambientTempC: number
-  meanDeltaOverAmbientK: number
-  meanManifoldKpa: number | null
-  pressureRatio: number | null
-  preCoolerTempC: number | null
-  effectiveness: number | null
-  effectivenessSource: 'measured' | 'estimated' | null
-  densityRatioIsa: number | null
-  powerLossVsCoolestPct: number
-  powerLossVsAmbientPct: number
-  powerLossVsCoolestKw: number | null
-  powerLossVsAmbientKw: number | null
-  meanRpm: number | null
-  meanSpeedKmh: number | null
-  maskedFraction: number
-  chargeDewPointC: number | null
-}
-
-export type MaskReason = 'engine-off' | 'restart-settle' | 'temp-spike' | 'below-ambient'
-
-export interface MaskSpan {
-  startS: number
-  endS: number
-  reason: MaskReason
-  note: string
-}
-
-export interface SoakProjection {
-  lossPct: number
-  atPullNumber: number | null
-  morePulls: number | null
-  assumption: string
-}
-
-export interface AnalysisSummary {
-  pullCount: number
-  peakChargeTempC: number | null
-  maxPowerLossVsCoolestPct: number | null
-  maxPowerLossVsAmbientPct: number | null
-  maxPowerLossVsCoolestKw: number | null
-  soakIndexKPerPull: number | null
-  soakFitR2: number | null
-  chargeTempRiseK: number | null
-  recoveryTimeConstantS: number | null
-  projection: SoakProjection
-  meanEffectiveness: number | null
-  effectivenessSource: 'measured' | 'estimated' | null
-  meanDeltaOverAmbientK: number | null
-  ambientTempC: number | null
-  ambientSource: 'channel' | 'entered'
-  baroKpa: number
-  baroSource: 'channel' | 'entered' | 'isa'
-  pullChannel: 'pedal' | 'throttle' | null
-  pullThresholdPct: number
-  maxLoadPct: number | null
-  durationS: number
-  sampleCount: number
-  maskedS: number
-  compressorEfficiency: number
-  powerLossBasis: string
-}
-
-export interface AnalysisResult {
-  summary: AnalysisSummary
-  pulls: PullResult[]
-  masks: MaskSpan[]
-  warnings: CodedMessage[]
-  mapping: LogMapping
-}
-
-export interface Series {
-  channel: ChannelId
-  unit: string
-  t: number[]
-  v: (number | null)[]
-}
-
-export interface DownsampleResult {
-  fromS: number
-  toS: number
-  sampleCount: number
-  method: 'minmax' | 'lttb'
-  series: Series[]
-}
-
-export interface WhatIfResult {
-  ambientTempC: number
-  basis: string
-  pulls: { index: number, chargeTempC: number, deltaOverAmbientK: number, powerLossVsCoolestPct: number }[]
-  summary: { peakChargeTempC: number | null, maxPowerLossVsCoolestPct: number | null }
 }
 
 export interface ShareLink {

@@ -3,8 +3,8 @@ import { beforeEach, describe, expect, it } from 'vitest'
 import MappingForm from '~/components/upload/MappingForm.vue'
 import type { ColumnInfo, DetectResponse } from '#shared/types/report'
 
-function column(index: number, header: string, samples: string[], unit?: string): ColumnInfo {
-  return { index, header, name: header, unit, kind: 'numeric', samples, numericShare: 1, emptyShare: 0, median: 0, min: 0, max: 0, medianStep: 0 }
+function column(index: number, header: string, samples: string[], unit?: ColumnInfo['unit']): ColumnInfo {
+  return { index, header, name: header, unit, kind: 'numeric', samples, numericShare: 1, numericCount: samples.length, emptyShare: 0, median: 0, min: 0, max: 0, medianStep: 0 }
 }
 
 // A logger whose charge-air column the engine could not tell from the coolant one.
