@@ -10,7 +10,8 @@ export function navigationFor(role: Role): NavItem[] {
   const home: NavItem = { to: '/', label: role === 'driver' ? 'My cars' : 'Overview' }
   const items: NavItem[] = [home]
   if (role !== 'driver') items.push({ to: '/vehicles', label: 'Cars' })
-  if (role === 'owner' || role === 'tuner') items.push({ to: '/logs', label: 'Logs' })
+  // The fabricator reads the reports to size a core; the driver finds logs on their car's page.
+  if (role !== 'driver') items.push({ to: '/logs', label: 'Logs' })
   if (role === 'owner' || role === 'fabricator') items.push({ to: '/cores', label: 'Core catalogue' })
   if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
   items.push({ to: '/account', label: 'My account' })

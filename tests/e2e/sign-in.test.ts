@@ -4,7 +4,7 @@ import { DESKTOP, openBrowser, PHONE, screenshot, signInThroughPage, type Sessio
 const ROLES = [
   { email: 'owner@kestrel.test', role: 'owner', nav: ['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices'] },
   { email: 'tuner@kestrel.test', role: 'tuner', nav: ['Overview', 'Cars', 'Logs'] },
-  { email: 'fab@kestrel.test', role: 'fabricator', nav: ['Overview', 'Cars', 'Core catalogue'] },
+  { email: 'fab@kestrel.test', role: 'fabricator', nav: ['Overview', 'Cars', 'Logs', 'Core catalogue'] },
   { email: 'driver@kestrel.test', role: 'driver', nav: ['My cars'] },
   { email: 'driver2@kestrel.test', role: 'driver', nav: ['My cars'] },
   { email: 'owner@harbourside.test', role: 'owner', nav: ['Overview', 'Logs', 'People'] },

@@ -53,7 +53,7 @@ describe('navigation', () => {
     const labels = (role: Role) => navigationFor(role).map(item => item.label)
     expect(labels('owner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices', 'My account'])
     expect(labels('tuner')).toEqual(['Overview', 'Cars', 'Logs', 'My account'])
-    expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Core catalogue', 'My account'])
+    expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'My account'])
     expect(labels('driver')).toEqual(['My cars', 'My account'])
   })
 })
