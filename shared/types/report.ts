@@ -97,6 +97,7 @@ export interface LogListItem {
   sizeBytes: number
   rowCount: number
   durationS: number
+  recordedOn?: string | null
   createdAt: string
   uploadedByName: string | null
   notes: string
