@@ -3,11 +3,12 @@
 // server reaches the client bundle, and the client cannot drift from the engine's JSON.
 // Values stay SI (°C, K, kPa, kW, %); display units are chosen at the edge by the units store.
 
-import type { AnalysisResult, ChannelId, ColumnInfo, DetectedFormat, LogMapping, MappingInput, PullEdits } from '../../server/analysis'
+import type { AnalysisResult, ChannelId, ColumnPreview, MappingInput, PullEdits } from '../../server/analysis'
 
 export type {
   AnalysisResult,
   AnalysisSummary,
+  AnalysisWarning,
   ChannelId,
   ColumnInfo,
   DetectedFormat,
@@ -28,14 +29,6 @@ export type { ColumnKind } from '../../server/analysis/import/detect'
 export type { MappingSource, UnitSource } from '../../server/analysis/import/mapping'
 export type { WhatIfResult } from '../../server/analysis/whatif'
 
-export interface CodedMessage {
-  code: string
-  message: string
-  channel?: string
-  column?: string
-  line?: number
-}
-
 export interface LogProfile {
   id: number
   name: string
@@ -44,17 +37,8 @@ export interface LogProfile {
   createdAt?: string
 }
 
-export interface DetectResponse {
-  format: DetectedFormat
-  columns: ColumnInfo[]
-  rows: string[][]
-  mapping: LogMapping
-  headerSignature: string
-  needsAmbientTemp: boolean
-  needsBaro: boolean
-  warnings: CodedMessage[]
-  profile: LogProfile | null
-}
+/** POST /api/logs/detect: the engine's preview of the file, plus a saved profile for the same header. */
+export type DetectResponse = ColumnPreview & { profile: LogProfile | null }
 
 export interface LogConditions {
   ambientTempC?: number | null

@@ -19,6 +19,18 @@ export interface Reply<T = unknown> {
   headers: Headers
 }
 
+async function toReply<T>(response: Response): Promise<Reply<T>> {
+  const text = await response.text()
+  let parsed: unknown = text
+  try {
+    parsed = text ? JSON.parse(text) : null
+  }
+  catch {
+    // not JSON (a download, a CSV): keep the text
+  }
+  return { status: response.status, body: parsed as T, headers: response.headers }
+}
+
 // Each signed-in client gets its own cookie jar and its own client address.
 export class Client {
   cookie = ''
@@ -31,15 +43,7 @@ export class Client {
     const response = await testFetch(path, { method, headers, body: body === undefined ? undefined : JSON.stringify(body), redirect: 'manual' })
     const setCookie = response.headers.get('set-cookie')
     if (setCookie) this.cookie = setCookie.split(';')[0]!
-    const text = await response.text()
-    let parsed: unknown = text
-    try {
-      parsed = text ? JSON.parse(text) : null
-    }
-    catch {
-      // not JSON: keep the text
-    }
-    return { status: response.status, body: parsed as T, headers: response.headers }
+    return toReply<T>(response)
   }
 
   // multipart/form-data, as the upload page sends it.
@@ -51,16 +55,7 @@ export class Client {
     if (file) form.append('file', new Blob([typeof file.content === 'string' ? file.content : new Uint8Array(file.content)]), file.name)
     const headers: Record<string, string> = { 'x-forwarded-for': this.address }
     if (this.cookie) headers.cookie = this.cookie
-    const response = await testFetch(path, { method: 'POST', headers, body: form })
-    const text = await response.text()
-    let parsed: unknown = text
-    try {
-      parsed = text ? JSON.parse(text) : null
-    }
-    catch {
-      // not JSON: keep the text
-    }
-    return { status: response.status, body: parsed as T, headers: response.headers }
+    return toReply<T>(await testFetch(path, { method: 'POST', headers, body: form }))
   }
 
   get<T = unknown>(path: string) {
