@@ -63,6 +63,8 @@ export const DEMO_COLUMNS = [
 
 export interface DemoLogOptions {
   seed?: number
+  /** Ambient temperature of the day, °C (default: the scenario's). */
+  ambientC?: number
   sampleRateHz?: number
   pulls?: number
 }
@@ -117,7 +119,8 @@ export function generateDemoLog(scenario: DemoScenario, options: DemoLogOptions 
   const cycleS = PULL_S + LIFT_S + p.gapS
   const totalS = WARMUP_S + pulls * cycleS + COOLDOWN_S
   const rows = Math.round(totalS * rate)
-  const ambientK0 = p.ambientC + KELVIN_OFFSET
+  const ambientC = options.ambientC ?? p.ambientC
+  const ambientK0 = ambientC + KELVIN_OFFSET
   const baroPa = 100500
 
   let soakK = 1.5
@@ -187,7 +190,7 @@ export function generateDemoLog(scenario: DemoScenario, options: DemoLogOptions 
     fileName: `demo-${scenario}.csv`,
     csv: `${lines.join('\n')}\n`,
     rowCount: rows,
-    ambientTempC: p.ambientC,
+    ambientTempC: ambientC,
     pullCount: pulls,
   }
 }

@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm'
 import { generateDemoLog } from '../analysis'
 import type { Db } from './db'
 import type { Role } from '#shared/utils/roles'
+import type { Actor } from '#shared/utils/abilities'
 
 // The demo scenario is invented: workshops, people and cars are our own.
 export const DEMO_PASSWORD = 'densitas-demo'
@@ -46,28 +47,57 @@ export async function seedDemoIfEmpty(db: Db) {
       { workshopId: kestrel.id, ownerId: k['driver2@kestrel.test']!.id, description: '1.8 L four-cylinder turbo-petrol estate', registration: 'KR 19 PTL', displacementL: 1.8, cylinders: 4, fuel: 'petrol', ratedPowerKw: 132, notes: '' },
       { workshopId: harbourside.id, ownerId: h['driver@harbourside.test']!.id, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HB 20 TOW', displacementL: 3.0, cylinders: 6, fuel: 'diesel', ratedPowerKw: 190, notes: 'Tows a boat trailer up the slipway.' },
     ]).run()
-    return { kestrel, tuner: k['tuner@kestrel.test']!, hatchback, frontMount }
+    return { kestrel, tuner: k['tuner@kestrel.test']!, hatchback, stock, frontMount }
   })
 
-  // Two invented logs of the hatchback, stored exactly as an upload would store them: a hot day
-  // with the small factory core soaking over six pulls, and the same car after the front-mount.
+  // Two invented logs of the hatchback, stored exactly as an upload would store them: a mild
+  // spring day with the small factory core soaking over six pulls, and the same car on a hot
+  // summer day after the front-mount. Each log records the core fitted when it was made.
   const actor = { id: seeded.tuner.id, role: seeded.tuner.role, workshopId: seeded.kestrel.id }
   const logs = [
-    { scenario: 'stock-core-hot-day' as const, recordedOn: '2026-07-14', notes: 'Six pulls on the test track, factory core. Customer says the third pull already felt flat.' },
-    { scenario: 'front-mount-after' as const, recordedOn: '2026-08-02', notes: 'Same track and route after fitting the bar-and-plate front-mount.' },
+    { scenario: 'stock-core-hot-day' as const, ambientC: 14, fileName: 'demo-stock-core-mild-day.csv', coreId: seeded.stock.id, recordedOn: '2026-04-18', notes: 'Six pulls on the test track, factory core, a mild spring day. Customer says the third pull already felt flat.' },
+    { scenario: 'front-mount-after' as const, ambientC: 32, fileName: 'demo-front-mount-after.csv', coreId: seeded.frontMount.id, recordedOn: '2026-08-02', notes: 'Same track and route after fitting the bar-and-plate front-mount, on a hot summer afternoon.' },
   ]
+  const stored: Record<'before' | 'after', number[]> = { before: [], after: [] }
   for (const entry of logs) {
-    const demo = generateDemoLog(entry.scenario)
-    await storeNewLog({
+    db.update(tables.vehicles).set({ fittedCoreId: entry.coreId }).where(eq(tables.vehicles.id, seeded.hatchback.id)).run()
+    const demo = generateDemoLog(entry.scenario, { ambientC: entry.ambientC })
+    const { log } = await storeNewLog({
       actor,
       vehicle: db.select().from(tables.vehicles).where(eq(tables.vehicles.id, seeded.hatchback.id)).get()!,
       bytes: new TextEncoder().encode(demo.csv),
-      originalName: demo.fileName,
+      originalName: entry.fileName,
       conditions: {},
       notes: entry.notes,
       recordedOn: entry.recordedOn,
     })
+    stored[entry.coreId === seeded.stock.id ? 'before' : 'after'].push(log.id)
   }
-  db.update(tables.vehicles).set({ fittedCoreId: seeded.frontMount.id }).where(eq(tables.vehicles.id, seeded.hatchback.id)).run()
+  seedDemoComparison(db, actor, seeded.hatchback.id, stored)
   return true
+}
+
+// The hatchback's before-and-after: a stored comparison of the two logs at 25 °C, and one dyno
+// run a side (invented figures: the after run was on a hotter, lower-pressure day).
+function seedDemoComparison(db: Db, actor: Actor, vehicleId: number, sides: Record<'before' | 'after', number[]>) {
+  const vehicle = db.select().from(tables.vehicles).where(eq(tables.vehicles.id, vehicleId)).get()!
+  const result = computeComparison(actor, vehicle, sides, 25)
+  db.transaction((tx) => {
+    const comparison = tx.insert(tables.comparisons).values({
+      workshopId: actor.workshopId,
+      vehicleId,
+      title: 'Factory core against the front-mount',
+      referenceAmbientC: 25,
+      result: result as unknown as Record<string, unknown>,
+      computedAt: new Date(),
+      createdById: actor.id,
+    }).returning().get()
+    tx.insert(tables.comparisonLogs).values(result.logs.map(l => ({ comparisonId: comparison.id, logId: l.id, side: l.side }))).run()
+    const logs = tx.select({ id: tables.logs.id, coreId: tables.logs.coreId }).from(tables.logs).where(eq(tables.logs.vehicleId, vehicleId)).all()
+    const coreOf = (side: 'before' | 'after') => logs.find(l => l.id === sides[side][0])?.coreId ?? null
+    tx.insert(tables.dynoRuns).values([
+      { workshopId: actor.workshopId, vehicleId, label: 'Before: factory core', side: 'before', coreId: coreOf('before'), powerKw: 104.5, torqueNm: 318, rpm: 4000, ambientTempC: 16, baroKpa: 101.2, humidityPct: 55, runOn: '2026-04-18', createdById: actor.id },
+      { workshopId: actor.workshopId, vehicleId, label: 'After: front-mount', side: 'after', coreId: coreOf('after'), powerKw: 105, torqueNm: 322, rpm: 4000, ambientTempC: 33, baroKpa: 99.8, humidityPct: 40, runOn: '2026-08-02', createdById: actor.id },
+    ]).run()
+  })
 }

@@ -139,6 +139,7 @@ export interface NewLog {
   conditions: ConditionsInput
   notes?: string
   recordedOn?: string | null
+  coreId?: number | null
 }
 
 // Analyse first, then write the file and the rows together: the file goes to a temporary name,
@@ -166,6 +167,7 @@ export async function storeNewLog(input: NewLog) {
         durationS: imported.durationS,
         notes: input.notes ?? '',
         recordedOn: input.recordedOn ?? null,
+        coreId: input.coreId !== undefined ? input.coreId : vehicle.fittedCoreId,
       }).returning().get()
       tx.insert(tables.analyses).values({ workshopId: actor.workshopId, logId: row.id, engineVersion: ENGINE_VERSION, result: analysis as unknown as Record<string, unknown> }).run()
       recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'uploaded', entity: 'log', entityId: row.id, detail: { vehicleId: vehicle.id, originalName, sizeBytes: bytes.byteLength, rows: imported.rowCount } })

@@ -102,6 +102,7 @@ export interface ShareLink {
 }
 
 export interface SharedReport {
+  kind: 'log'
   workshopName: string
   vehicleDescription: string
   log: Omit<LogDetail, 'mapping'>

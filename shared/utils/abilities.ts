@@ -41,6 +41,12 @@ export const canEditLog = (actor: Actor, vehicle: OwnedByDriver) => canUploadLog
 export const canDeleteLog = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
 export const canShareReport = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
 export const canCompareLogs = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
+// Which core was fitted when a log was made is the workshop's record, not the customer's.
+export const canChangeLogCore = (actor: Actor) => isStaff(actor)
+// Dyno runs are recorded by the people who run the dyno and read the figures.
+export const canRecordDynoRuns = (actor: Actor) => actor.role === 'owner' || actor.role === 'tuner'
+// The workshop's own evidence per core is for its staff; it never leaves the workshop.
+export const canViewCoreEvidence = (actor: Actor) => isStaff(actor)
 
 // Core catalogue and quotes are the fabricator's trade.
 export const canViewCores = (actor: Actor) => isStaff(actor)

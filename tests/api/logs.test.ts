@@ -38,8 +38,8 @@ describe('the demo seed', () => {
   it('carries the two invented logs of the hatchback, analysed', async () => {
     const list = await clients.driver.get<Array<{ originalName: string, summary: { pullCount: number, soakIndexKPerPull: number } }>>(`/api/logs?vehicleId=${ids.driverCar}`)
     const names = list.body.map(l => l.originalName)
-    expect(names).toEqual(expect.arrayContaining(['demo-stock-core-hot-day.csv', 'demo-front-mount-after.csv']))
-    const hot = list.body.find(l => l.originalName === 'demo-stock-core-hot-day.csv')!
+    expect(names).toEqual(expect.arrayContaining(['demo-stock-core-mild-day.csv', 'demo-front-mount-after.csv']))
+    const hot = list.body.find(l => l.originalName === 'demo-stock-core-mild-day.csv')!
     expect(hot.summary.pullCount).toBe(6)
     expect(hot.summary.soakIndexKPerPull).toBeGreaterThan(0)
   })

@@ -60,6 +60,7 @@ export default defineEventHandler(async (event) => {
     }).where(eq(tables.logs.id, log.id)).returning().get()
     if (analysis) {
       tx.update(tables.analyses).set({ result: analysis as unknown as Record<string, unknown>, engineVersion: ENGINE_VERSION, createdAt: new Date() }).where(eq(tables.analyses.logId, log.id)).run()
+      markComparisonsStale(tx, log.id)
     }
     recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: reanalyse ? 'reanalysed' : 'updated', entity: 'log', entityId: log.id, detail: { fields: Object.keys(changes) } })
     return row

@@ -17,6 +17,7 @@ const fields = z.object({
   profileId: z.coerce.number().int().positive().optional(),
   notes: z.string().max(5000).optional(),
   recordedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'recordedOn is a date like 2026-07-14').optional(),
+  coreId: z.coerce.number().int().positive().optional(),
 })
 
 export default defineEventHandler(async (event) => {
@@ -51,6 +52,8 @@ export default defineEventHandler(async (event) => {
 
   const vehicle = findVisibleVehicle(actor, input.vehicleId)
   if (!canUploadLog(actor, vehicle)) forbidden('Your role cannot upload logs. Ask a tuner, or the car\'s owner.')
+  if (input.coreId !== undefined && !canChangeLogCore(actor)) forbidden('Only the workshop\'s staff record which core was fitted; leave the core out and the car\'s fitted core is used.')
+  assertCatalogueCore(actor, input.coreId)
 
   if (!file) badRequest('No file was attached. Choose the log file (.csv, .txt or .log) and send it again.')
   const problem = checkLogFile(file.name, file.data.byteLength)
@@ -83,6 +86,7 @@ export default defineEventHandler(async (event) => {
     conditions: { ambientTempC: input.ambientTempC, altitudeM: input.altitudeM, baroKpa: input.baroKpa, humidityPct: input.humidityPct },
     notes: input.notes,
     recordedOn: input.recordedOn,
+    coreId: input.coreId,
   })
   setResponseStatus(event, 201)
   return logDetail(log, vehicle)

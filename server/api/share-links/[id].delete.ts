@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   if (!link) notFound('Shared link')
   db.transaction((tx) => {
     tx.update(tables.shareLinks).set({ revokedAt: new Date() }).where(where).run()
-    recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'revoked-share', entity: 'log', entityId: link.logId, detail: { shareLinkId: id } })
+    recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'revoked-share', entity: link.comparisonId ? 'comparison' : 'log', entityId: link.comparisonId ?? link.logId, detail: { shareLinkId: id } })
   })
   setResponseStatus(event, 204)
   return null

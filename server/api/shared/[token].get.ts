@@ -1,8 +1,13 @@
 export default defineEventHandler((event) => {
   const { token } = readParamsWith(event, tokenParams)
+  setResponseHeader(event, 'cache-control', 'private, no-store')
+  const link = findShareLink(token)
+  if (link.comparisonId !== null) {
+    const { comparison, vehicle, workshopName } = findSharedComparison(token)
+    return sharedComparisonView(comparison, vehicle, workshopName)
+  }
   const { log, vehicle, workshopName } = findSharedLog(token)
   // Read-only and without the uploader's details or the column mapping.
   const { mapping: _mapping, uploadedByName: _uploader, ...detail } = logDetail(log, vehicle)
-  setResponseHeader(event, 'cache-control', 'private, no-store')
-  return { workshopName, vehicleDescription: vehicle.description, log: detail, analysis: storedAnalysis(log.id) }
+  return { kind: 'log' as const, workshopName, vehicleDescription: vehicle.description, log: detail, analysis: storedAnalysis(log.id) }
 })

@@ -41,6 +41,22 @@ describe('abilities', () => {
     expect(abilities.canViewQuote(actor('tuner'), { customerId: 11 })).toBe(false)
   })
 
+  it('lets the owner and tuner build and delete comparisons; everyone who sees the car reads them', () => {
+    for (const role of ROLES) expect(abilities.canCompareLogs(actor(role))).toBe(role === 'owner' || role === 'tuner')
+  })
+
+  it('lets staff, not the customer, record which core a log was made with', () => {
+    for (const role of ROLES) expect(abilities.canChangeLogCore(actor(role))).toBe(role !== 'driver')
+  })
+
+  it('lets the owner and tuner record dyno runs', () => {
+    for (const role of ROLES) expect(abilities.canRecordDynoRuns(actor(role))).toBe(role === 'owner' || role === 'tuner')
+  })
+
+  it('keeps the evidence per core with the workshop\'s staff', () => {
+    for (const role of ROLES) expect(abilities.canViewCoreEvidence(actor(role))).toBe(role !== 'driver')
+  })
+
   it('recognises the four roles and nothing else', () => {
     expect(ROLES.every(isRole)).toBe(true)
     expect(isRole('admin')).toBe(false)
