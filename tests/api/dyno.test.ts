@@ -13,6 +13,7 @@ interface Compared { standard: string, caution: string, comparison: null | { sta
 
 const one = <T>(sql: string, ...args: unknown[]) => readDatabase(db => db.prepare(sql).get(...args) as T)
 const runCount = () => one<{ n: number }>('select count(*) n from dyno_runs').n
+let toDelete = 0
 const run = (extra: Record<string, unknown> = {}) => ({ label: 'Test run', side: 'after', powerKw: 100, ambientTempC: 25, baroKpa: 99, ...extra })
 
 beforeAll(async () => {
@@ -28,6 +29,7 @@ beforeAll(async () => {
   ids.driver2Car = carOf('driver2@kestrel.test')
   ids.foreignCar = carOf('driver@harbourside.test')
   ids.foreignCore = one<{ id: number }>('select id from cores where name like ?', 'Harbourside%').id
+  toDelete = (await clients.tuner.post<Run>(`/api/vehicles/${ids.driverCar}/dyno-runs`, run({ label: 'to delete' }))).body.id
 })
 
 describe('the demo pair of dyno runs', () => {
@@ -92,7 +94,7 @@ describe('POST /api/vehicles/:id/dyno-runs', () => {
     ['a side that is neither', run({ side: 'during' }), 400, /before or after/],
     ['an empty label', run({ label: '' }), 400, /label/],
     ['a core id that is not a positive number', run({ coreId: 0 }), 400, /coreId/],
-  ])('%s → %i, nothing stored', async (_name, input, status, message) => {
+  ])('%s: a clear message, nothing stored', async (_name, input, status, message) => {
     const before = runCount()
     const reply = await clients.tuner.post<{ message: string }>(`/api/vehicles/${ids.driverCar}/dyno-runs`, input)
     expect(reply.status).toBe(status)
@@ -110,10 +112,7 @@ describe('POST /api/vehicles/:id/dyno-runs', () => {
 })
 
 describe('reading and deleting dyno runs', () => {
-  let id = 0
-  beforeAll(async () => {
-    id = (await clients.tuner.post<Run>(`/api/vehicles/${ids.driverCar}/dyno-runs`, run({ label: 'to delete' }))).body.id
-  })
+  const id = () => toDelete
 
   it.each([
     ['anonymous', 401], ['owner', 200], ['fabricator', 200], ['driver', 200], ['driver2', 404], ['foreignOwner', 404],
@@ -126,13 +125,13 @@ describe('reading and deleting dyno runs', () => {
     ['anonymous', 401], ['fabricator', 403], ['driver', 403], ['driver2', 404], ['foreignOwner', 404],
   ] as const)('DELETE by %s → %i, nothing removed', async (who, status) => {
     const before = runCount()
-    expect((await clients[who].delete(`/api/dyno-runs/${id}`)).status).toBe(status)
+    expect((await clients[who].delete(`/api/dyno-runs/${id()}`)).status).toBe(status)
     expect(runCount()).toBe(before)
   })
 
   it('the tuner deletes it', async () => {
-    expect((await clients.tuner.delete(`/api/dyno-runs/${id}`)).status).toBe(204)
-    expect(one<{ n: number }>('select count(*) n from dyno_runs where id = ?', id).n).toBe(0)
+    expect((await clients.tuner.delete(`/api/dyno-runs/${id()}`)).status).toBe(204)
+    expect(one<{ n: number }>('select count(*) n from dyno_runs where id = ?', id()).n).toBe(0)
   })
 })
 
