@@ -140,7 +140,6 @@ describe('POST /api/comparisons', () => {
 })
 
 describe('choices that cannot be compared: a clear 4xx, nothing stored', () => {
-
   it.each([
     ['a log of another car', () => body({ afterLogIds: [otherCarLog] }), 422, /other-car\.csv\) belongs to another car/],
     ['an empty before side', () => body({ beforeLogIds: [] }), 422, /at least one log for the before side/],
@@ -316,5 +315,24 @@ describe('GET /api/cores/:id/evidence', () => {
 
   it('a core of another workshop is not found', async () => {
     expect((await clients.tuner.get(`/api/cores/${ids.foreignCore}/evidence`)).status).toBe(404)
+  })
+})
+
+describe('the picker and the core line read the same rules as the car', () => {
+  it.each([
+    ['anonymous', 401], ['owner', 200], ['tuner', 200], ['fabricator', 200], ['driver', 200], ['driver2', 404], ['foreignOwner', 404],
+  ] as const)('GET log choices and a log\'s core by %s → %i', async (who, status) => {
+    expect((await clients[who].get(`/api/vehicles/${ids.driverCar}/log-choices`)).status).toBe(status)
+    expect((await clients[who].get(`/api/logs/${ids.stockLog}/core`)).status).toBe(status)
+  })
+
+  it('the picker shows day, core, ambient temperature, pull count and mean effectiveness per log', async () => {
+    const reply = await clients.tuner.get<Array<{ id: number, recordedOn: string, coreName: string, ambientTempC: number, pullCount: number, meanEffectiveness: number }>>(`/api/vehicles/${ids.driverCar}/log-choices`)
+    const stock = reply.body.find(l => l.id === ids.stockLog)!
+    expect(stock).toMatchObject({ recordedOn: '2026-04-18', pullCount: 6 })
+    expect(stock.coreName).toMatch(/^Factory side-mount core/)
+    expect(stock.ambientTempC).toBeCloseTo(14, 0)
+    expect(stock.meanEffectiveness).toBeGreaterThan(0.6)
+    expect(reply.body.every(l => !('mapping' in l))).toBe(true)
   })
 })

@@ -13,6 +13,12 @@ describe('the tuner compares the core before and after', () => {
       await page.goto('/vehicles')
       await page.getByRole('link', { name: /2\.0 L four-cylinder turbo-diesel hatchback/ }).first().click()
       await page.getByTestId('vehicle-comparisons').waitFor()
+      const carPath = new URL(page.url()).pathname
+      // The demo pair of dyno runs, corrected, with the caution beside them.
+      await expect(page.getByTestId('dyno-run').count()).resolves.toBeGreaterThanOrEqual(2)
+      await expect(page.getByTestId('dyno-caution').textContent()).resolves.toMatch(/trained operators/)
+      await expect(page.getByTestId('dyno-comparison').textContent()).resolves.toMatch(/corrected by SAE J1349 \(2004\)/)
+      await screenshot(page, 'comparison-car-page')
       await page.getByTestId('comparison-start').click()
       const builder = page.getByTestId('comparison-builder')
       await builder.waitFor()
@@ -46,6 +52,9 @@ describe('the tuner compares the core before and after', () => {
       await page.emulateMedia({ media: 'print' })
       await expect(page.getByTestId('share-panel').isVisible()).resolves.toBe(false)
       await screenshot(page, 'comparison-print')
+      await page.emulateMedia({ media: 'screen' })
+      await page.goto(carPath)
+      await expect(page.getByTestId('comparison-list').textContent()).resolves.toMatch(/After core works better/)
     }
     finally {
       await browser.close()

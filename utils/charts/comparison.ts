@@ -45,6 +45,7 @@ export function pullOverlayOption(input: OverlayInput): EChartsOption {
       type: 'line' as const,
       name: SIDE_NAMES[side],
       color: SIDE_COLOURS[side],
+      symbol: 'circle',
       symbolSize: 9,
       lineStyle: { width: 2 },
       data: bySide(side).map(p => ({
@@ -80,8 +81,8 @@ export function referenceChargeOption(input: ReferenceInput): EChartsOption {
     tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } },
     xAxis: {
       type: 'category',
-      data: ['As logged (each on its own day)', `At ${t(referenceAmbientC)} ${unit} ambient`],
-      axisLabel: { interval: 0, width: 140, overflow: 'break' },
+      data: ['As logged, each on its day', `At ${t(referenceAmbientC)} ${unit} ambient`],
+      axisLabel: { interval: 0 },
       axisLine: { lineStyle: { color: CHART_PALETTE.line } },
     },
     yAxis: { type: 'value', name: `Charge temperature (${unit})`, nameTextStyle: { align: 'left' }, splitLine: { lineStyle: { color: CHART_PALETTE.line } } },

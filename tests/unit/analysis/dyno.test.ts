@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { compareDynoRuns, correctDynoRun } from '../../../server/analysis/dyno'
+import { compareDynoRuns, correctDynoRun, type DynoSideInput } from '../../../server/analysis/dyno'
 import { percentile, spreadOf } from '../../../server/analysis/spread'
 import { din70020, saeJ1349_2004 } from '../../../server/analysis/correction'
 
@@ -38,7 +38,11 @@ describe('before and after corrected power', () => {
   })
 
   it('a 2 % change over three runs a side is within the noise', () => {
-    const c = compareDynoRuns([100, 102, 98].map(p => ({ side: 'before' as const, correctedPowerKw: p })).concat([102, 104, 100].map(p => ({ side: 'after' as const, correctedPowerKw: p }))), 'din-70020')!
+    const runs: DynoSideInput[] = [
+      ...[100, 102, 98].map(p => ({ side: 'before' as const, correctedPowerKw: p })),
+      ...[102, 104, 100].map(p => ({ side: 'after' as const, correctedPowerKw: p })),
+    ]
+    const c = compareDynoRuns(runs, 'din-70020')!
     // Welch: s = 2 each side, SE = √(4/3 + 4/3) = 1.63299, ν = 4, t(0.975, 4) = 2.776445 → ±4.5339
     expect(c.interval![0]).toBeCloseTo(2 - 4.5339, 3)
     expect(c.verdictTone).toBe('noise')

@@ -1,0 +1,42 @@
+import { mountSuspended } from '@nuxt/test-utils/runtime'
+import { describe, expect, it } from 'vitest'
+import Verdict from '~/components/comparison/Verdict.vue'
+import Figures from '~/components/comparison/Figures.vue'
+import { compareCores, type ComparisonLogInput, type ComparisonPullInput } from '../../server/analysis/beforeAfter'
+
+// The hand-computed pair of tests/unit/analysis/beforeAfter.test.ts, on a 45 °C after day.
+const pull = (index: number, ambientC: number, preC: number, chargeC: number): ComparisonPullInput => ({
+  index, ambientTempC: ambientC, meanChargeTempC: chargeC, meanDeltaOverAmbientK: chargeC - ambientC, meanManifoldKpa: 200, pressureRatio: 2,
+  preCoolerTempC: preC, effectiveness: (preC - chargeC) / (preC - ambientC), effectivenessSource: 'measured', meanRpm: 3000,
+})
+const before: ComparisonLogInput = { logId: 1, label: 'of 14 Jul', pulls: [pull(0, 20, 120, 58), pull(1, 20, 120, 56)] }
+const after: ComparisonLogInput = { logId: 2, label: 'of 2 Aug', pulls: [pull(0, 45, 145, 61), pull(1, 45, 145, 63)] }
+const result = compareCores([before], [after], { ratedPowerKw: 100 })
+const view = { ...result, title: '', logs: [{ side: 'before' as const, label: 'of 14 Jul', recordedOn: null, coreName: 'Small core' }, { side: 'after' as const, label: 'of 2 Aug', recordedOn: null, coreName: 'Big core' }] }
+
+describe('ComparisonVerdict', () => {
+  it('says the after core is better, warns that the raw temperatures mislead, and gives the dyno note', async () => {
+    const wrapper = await mountSuspended(Verdict, { props: { comparison: view } })
+    expect(wrapper.find('[data-testid="comparison-verdict"]').attributes('data-tone')).toBe('better')
+    expect(wrapper.text()).toMatch(/Common practice, no source/)
+    expect(wrapper.find('[data-testid="comparison-warning-raw-misleads"]').text()).toMatch(/25\.0 K warmer/)
+  })
+})
+
+describe('ComparisonFigures', () => {
+  it('gives the gain in points with its Welch interval, and follows the units store', async () => {
+    const wrapper = await mountSuspended(Figures, { props: { comparison: view } })
+    // ε̄ 0.63 → 0.83: +20.0 points, interval 0.139151 … 0.260849 (see the unit test's working)
+    expect(wrapper.find('[data-testid="figure-effectiveness"]').text()).toMatch(/\+20\.0 points.*\+13\.9 points to \+26\.1 points/)
+    const units = useUnitsStore()
+    units.temperature = 'F'
+    try {
+      const fahrenheit = await mountSuspended(Figures, { props: { comparison: view } })
+      // ΔT change −20 K = −36 °F of difference
+      expect(fahrenheit.find('[data-testid="figure-delta"]').text()).toMatch(/−36\.0 °F/)
+    }
+    finally {
+      units.temperature = 'C'
+    }
+  })
+})
