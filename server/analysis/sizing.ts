@@ -9,8 +9,13 @@
 //    × ideal-gas density at ambient (§2);
 // 3. UA of the fitted core from the log's effectiveness by inverting the crossflow ε-NTU relation
 //    (§6, Incropera et al. 6th ed. §11.4; Kays & London; `calibrateUa`);
-// 4. UA of a candidate ∝ face area × depth (model assumption, common practice, no source: same fin
-//    and tube pitch, heat-transfer coefficients as in the calibration);
+// 4. UA of a candidate: the calibrated UA split into a charge-side and a cooling-air-side
+//    conductance (equal halves of the resistance: common practice, no source), each scaled with
+//    core volume (face area × depth, same fin and tube pitch) and with its stream's speed —
+//    charge side h ∝ Re^0.8 (Dittus–Boelter, Incropera et al. 6th ed. §8.5, from memory), the
+//    charge crossing the width so its flow area ∝ height × depth; air side h ∝ Re^0.5 (laminar
+//    boundary layer on the fins, Incropera §7.2, from memory). With equal speeds this reduces to
+//    UA ∝ face area × depth;
 // 5. at design: compressor outlet temperature from the pressure ratio (§4), each core's outlet
 //    temperature from ε-NTU (`predictCore`), density ratio at equal manifold pressure from the ideal
 //    gas law (§7: ρ ∝ p/T), power by the density law (an upper bound, §7);
@@ -18,7 +23,7 @@
 import { compressorEfficiencyFromTemps, compressorOutletTempK, DEFAULT_COMPRESSOR_EFFICIENCY } from './compressor'
 import { KELVIN_OFFSET, R_DRY_AIR } from './constants'
 import { dryAirDensity } from './density'
-import { calibrateUa, massFlowFromPower, massFlowSpeedDensity, predictCore, type CalibratedCore } from './entu'
+import { calibrateUa, massFlowFromPower, massFlowSpeedDensity, predictCore } from './entu'
 
 export class SizingError extends Error {
   constructor(public readonly code: SizingErrorCode, message: string) {
@@ -215,6 +220,33 @@ function logCompressorEfficiency(pulls: SizingPull[], baroKpa: number): number |
   return eta >= 0.5 && eta <= 0.85 ? eta : null
 }
 
+/** Exponents of h on Reynolds number (sources in the header) and the share of resistance on the charge side. */
+export const CHARGE_SIDE_RE_EXPONENT = 0.8
+export const AIR_SIDE_RE_EXPONENT = 0.5
+export const CHARGE_SIDE_RESISTANCE_SHARE = 0.5
+
+interface ScaleReference {
+  ua: number
+  core: SizingCore
+  chargeMassFlowKgS: number
+  airSpeedMS: number
+}
+
+/**
+ * UA of a core at a given charge flow and air speed, from the calibrated one: 1/UA = 1/hA_charge +
+ * 1/hA_air, each side ∝ volume × (its stream's speed)^n; the charge speed ∝ ṁ/(height × depth).
+ */
+export function scaledUa(ref: ScaleReference, core: SizingCore, chargeMassFlowKgS: number, airSpeedMS: number): number {
+  const volumeRatio = (faceArea(core) * depth(core)) / (faceArea(ref.core) * depth(ref.core))
+  const chargeFlowAreaRatio = (core.faceHeightMm * core.depthMm) / (ref.core.faceHeightMm * ref.core.depthMm)
+  const chargeSpeedRatio = (chargeMassFlowKgS / ref.chargeMassFlowKgS) / chargeFlowAreaRatio
+  const hAChargeRef = ref.ua / CHARGE_SIDE_RESISTANCE_SHARE
+  const hAAirRef = ref.ua / (1 - CHARGE_SIDE_RESISTANCE_SHARE)
+  const hACharge = hAChargeRef * volumeRatio * chargeSpeedRatio ** CHARGE_SIDE_RE_EXPONENT
+  const hAAir = hAAirRef * volumeRatio * (airSpeedMS / ref.airSpeedMS) ** AIR_SIDE_RE_EXPONENT
+  return 1 / (1 / hACharge + 1 / hAAir)
+}
+
 function pressureDropKpa(massFlowKgS: number, core: SizingCore) {
   return PRESSURE_DROP_K * massFlowKgS ** 2 * depth(core) / faceArea(core)
 }
@@ -251,7 +283,7 @@ export function sizeCores(input: SizingInput): SizingResult {
   if (!Number.isFinite(calibration.ua) || calibration.ua <= 0) {
     throw new SizingError('NOT_CALIBRATABLE', `An effectiveness of ${effectiveness.toFixed(2)} is more than a ${input.fittedCore.faceWidthMm} × ${input.fittedCore.faceHeightMm} mm core can reach with the cooling air it gets at ${calibrationRoadKmh.toFixed(0)} km/h. Check the core recorded for this log and its sensors.`)
   }
-  const reference: CalibratedCore = { ua: calibration.ua, faceAreaM2: fittedFaceM2, depthM: depth(input.fittedCore) }
+  const reference: ScaleReference = { ua: calibration.ua, core: input.fittedCore, chargeMassFlowKgS: flow.massFlowKgS, airSpeedMS: calibrationAirMS }
 
   // Design point.
   const design = input.design
@@ -276,8 +308,7 @@ export function sizeCores(input: SizingInput): SizingResult {
   const airMS = roadKmh / 3.6 * speedRatio
   const rhoDesign = input.options?.coolingAirDensityKgM3
   const predict = (core: SizingCore) => predictCore({
-    calibratedFrom: reference,
-    depthM: depth(core),
+    ua: scaledUa(reference, core, designFlow, airMS),
     faceAreaM2: faceArea(core),
     chargeMassFlowKgS: designFlow,
     coolingAirSpeedMS: airMS,
@@ -377,7 +408,7 @@ function assumptionsFor(effectivenessSource: 'measured' | 'estimated', flowSourc
       ? 'Charge air flow: the mean of the mass air flow channel over the pulls.'
       : `Charge air flow by speed-density from engine size, engine speed, manifold pressure and charge temperature, with a volumetric efficiency of ${volumetricEfficiency.toFixed(2)} (Heywood 1988 §2.10, section from memory; 0.85–1.0 is common practice for a boosted engine).`,
     `Cooling air through the core at ${Math.round(speedRatio * 100)} % of road speed (common practice, no source)${roadFromDesign ? '; the log has no road speed, so the design road speed stands in for it' : ''}.`,
-    'Each candidate\'s heat conductance (UA) is the fitted core\'s, scaled by face area × depth (model assumption, common practice: same fin and tube pitch, heat-transfer coefficients as in the log).',
+    'Each core\'s heat conductance (UA) is the fitted core\'s split into equal charge-side and air-side halves (common practice, no source), each scaled by core volume (same fin and tube pitch) and by its stream\'s speed: charge side h ∝ Re^0.8 (Dittus–Boelter, Incropera et al. §8.5, from memory), air side h ∝ Re^0.5 (laminar fins, Incropera §7.2, from memory). A deeper core slows the charge air, so it gains less than its volume suggests.',
     'Crossflow core, both streams unmixed, steady state, c_p 1005 J/(kg·K) (ε-NTU, Incropera et al. 6th ed. §11.4, section from memory).',
     designFlowSource === 'power'
       ? 'Design air flow from the target power with full-load fuel use and mixture figures (common practice, no source).'

@@ -77,7 +77,7 @@ const FIELD_LABELS: Record<string, string> = {
 }
 
 // Messages a person reads name the form's labels, never the JSON keys.
-export async function readCoreBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.infer<S>> {
+export async function readLabelledBody<S extends z.ZodType>(event: H3Event, schema: S, labels: Record<string, string>, what: string): Promise<z.infer<S>> {
   let body: unknown
   try {
     body = await readBody(event)
@@ -89,12 +89,16 @@ export async function readCoreBody<S extends z.ZodType>(event: H3Event, schema: 
   if (!result.success) {
     const text = result.error.issues.map((issue) => {
       if (issue.code === 'unrecognized_keys') return `unknown field(s) ${issue.keys.join(', ')}`
-      const label = FIELD_LABELS[String(issue.path[0])]
+      const label = labels[issue.path.join('.')] ?? labels[String(issue.path[0])]
       return label ? `${label}: ${issue.message}` : issue.message
     }).join('; ')
-    badRequest(`The core is not valid — ${text}. Correct it and try again.`, { issues: result.error.issues })
+    badRequest(`The ${what} is not valid — ${text}. Correct it and try again.`, { issues: result.error.issues })
   }
   return result.data
+}
+
+export function readCoreBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.infer<S>> {
+  return readLabelledBody(event, schema, FIELD_LABELS, 'core')
 }
 
 // Fin density and its unit are checked together, on the row as it will be after the write.

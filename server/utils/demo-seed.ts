@@ -34,10 +34,13 @@ export async function seedDemoIfEmpty(db: Db) {
     const k = addUsers(kestrel.id, KESTREL_USERS)
     const h = addUsers(harbourside.id, HARBOURSIDE_USERS)
 
-    const stock = tx.insert(tables.cores).values({ workshopId: kestrel.id, name: 'Factory side-mount core (small)', kind: 'stock', faceWidthMm: 300, faceHeightMm: 180, depthMm: 60, notes: 'As fitted from the factory to the demo hatchback.' }).returning().get()
-    const frontMount = tx.insert(tables.cores).values({ workshopId: kestrel.id, name: 'Kestrel bar-and-plate front-mount 600', kind: 'front-mount', faceWidthMm: 600, faceHeightMm: 300, depthMm: 76, priceCents: 64_000, notes: 'Our usual uprate for 2.0 L hatchbacks.' }).returning().get()
+    // An invented catalogue: every field filled, names of our own. Prices in minor units.
+    const stock = tx.insert(tables.cores).values({ workshopId: kestrel.id, name: 'Factory side-mount core (small)', kind: 'stock', construction: 'tube-and-fin', faceWidthMm: 300, faceHeightMm: 180, depthMm: 60, finDensity: 14, finDensityUnit: 'per-inch', inletDiameterMm: 50, outletDiameterMm: 50, endTankLayout: 'same-side', weightKg: 2.1, uaWPerK: 190, costCents: 0, priceCents: 0, notes: 'As fitted from the factory to the demo hatchback. Kept for comparison; not sold.' }).returning().get()
+    const frontMount = tx.insert(tables.cores).values({ workshopId: kestrel.id, name: 'Kestrel bar-and-plate front-mount 600', kind: 'front-mount', construction: 'bar-and-plate', faceWidthMm: 600, faceHeightMm: 300, depthMm: 76, finDensity: 48, finDensityUnit: 'per-10cm', inletDiameterMm: 63, outletDiameterMm: 63, endTankLayout: 'opposite-sides', weightKg: 7.4, uaWPerK: 420, costCents: 38_500, priceCents: 64_000, notes: 'Our usual uprate for 2.0 L hatchbacks.' }).returning().get()
     tx.insert(tables.cores).values([
-      { workshopId: kestrel.id, name: 'Compact front-mount 550', kind: 'front-mount', faceWidthMm: 550, faceHeightMm: 230, depthMm: 65, priceCents: 48_000, notes: 'Fits behind the bumper without cutting on most small hatchbacks.' },
+      { workshopId: kestrel.id, name: 'Compact front-mount 550', kind: 'front-mount', construction: 'tube-and-fin', faceWidthMm: 550, faceHeightMm: 230, depthMm: 65, finDensity: 16, finDensityUnit: 'per-inch', inletDiameterMm: 57, outletDiameterMm: 57, endTankLayout: 'opposite-sides', weightKg: 4.6, uaWPerK: 300, costCents: 27_000, priceCents: 48_000, notes: 'Fits behind the bumper without cutting on most small hatchbacks.' },
+      { workshopId: kestrel.id, name: 'Kestrel tube-and-fin front-mount 650', kind: 'front-mount', construction: 'tube-and-fin', faceWidthMm: 650, faceHeightMm: 280, depthMm: 70, finDensity: 15, finDensityUnit: 'per-inch', inletDiameterMm: 63, outletDiameterMm: 63, endTankLayout: 'same-side', weightKg: 5.9, uaWPerK: 380, costCents: 33_000, priceCents: 56_500, notes: 'Lighter than the bar-and-plate cores; both pipes on the driver\'s side.' },
+      { workshopId: kestrel.id, name: 'Kestrel bar-and-plate front-mount 700 deep', kind: 'front-mount', construction: 'bar-and-plate', faceWidthMm: 700, faceHeightMm: 300, depthMm: 100, finDensity: 52, finDensityUnit: 'per-10cm', inletDiameterMm: 70, outletDiameterMm: 70, endTankLayout: 'opposite-sides', weightKg: 10.8, uaWPerK: 600, costCents: 52_000, priceCents: 86_000, notes: 'For tuned cars on track days; needs the bumper beam trimmed on most hatchbacks.' },
       { workshopId: harbourside.id, name: 'Harbourside tube-and-fin front-mount 700', kind: 'front-mount', faceWidthMm: 700, faceHeightMm: 300, depthMm: 80, priceCents: 72_000, notes: '' },
     ]).run()
 
@@ -46,19 +49,19 @@ export async function seedDemoIfEmpty(db: Db) {
       { workshopId: kestrel.id, ownerId: k['driver2@kestrel.test']!.id, description: '1.8 L four-cylinder turbo-petrol estate', registration: 'KR 19 PTL', displacementL: 1.8, cylinders: 4, fuel: 'petrol', ratedPowerKw: 132, notes: '' },
       { workshopId: harbourside.id, ownerId: h['driver@harbourside.test']!.id, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HB 20 TOW', displacementL: 3.0, cylinders: 6, fuel: 'diesel', ratedPowerKw: 190, notes: 'Tows a boat trailer up the slipway.' },
     ]).run()
-    return { kestrel, tuner: k['tuner@kestrel.test']!, hatchback, frontMount }
+    return { kestrel, tuner: k['tuner@kestrel.test']!, hatchback, stock, frontMount }
   })
 
   // Two invented logs of the hatchback, stored exactly as an upload would store them: a hot day
   // with the small factory core soaking over six pulls, and the same car after the front-mount.
   const actor = { id: seeded.tuner.id, role: seeded.tuner.role, workshopId: seeded.kestrel.id }
   const logs = [
-    { scenario: 'stock-core-hot-day' as const, recordedOn: '2026-07-14', notes: 'Six pulls on the test track, factory core. Customer says the third pull already felt flat.' },
-    { scenario: 'front-mount-after' as const, recordedOn: '2026-08-02', notes: 'Same track and route after fitting the bar-and-plate front-mount.' },
+    { scenario: 'stock-core-hot-day' as const, coreId: seeded.stock.id, recordedOn: '2026-07-14', notes: 'Six pulls on the test track, factory core. Customer says the third pull already felt flat.' },
+    { scenario: 'front-mount-after' as const, coreId: seeded.frontMount.id, recordedOn: '2026-08-02', notes: 'Same track and route after fitting the bar-and-plate front-mount.' },
   ]
   for (const entry of logs) {
     const demo = generateDemoLog(entry.scenario)
-    await storeNewLog({
+    const { log } = await storeNewLog({
       actor,
       vehicle: db.select().from(tables.vehicles).where(eq(tables.vehicles.id, seeded.hatchback.id)).get()!,
       bytes: new TextEncoder().encode(demo.csv),
@@ -67,6 +70,8 @@ export async function seedDemoIfEmpty(db: Db) {
       notes: entry.notes,
       recordedOn: entry.recordedOn,
     })
+    // Each log remembers the core fitted when it was made (sizing calibrates that core).
+    db.update(tables.logs).set({ coreId: entry.coreId }).where(eq(tables.logs.id, log.id)).run()
   }
   db.update(tables.vehicles).set({ fittedCoreId: seeded.frontMount.id }).where(eq(tables.vehicles.id, seeded.hatchback.id)).run()
   return true

@@ -12,12 +12,18 @@ import { isSizingError, sizeCores, type SizingInput, type SizingPull } from '../
 // Road speed 57.6 km/h × 0.25 (our through-core share) = 4.0 m/s; barometer 100 kPa so PR = 2.2.
 // The log's pre-cooler temperature 129.63 °C at 25 °C ambient backs out η_c = 0.72 (§4).
 // Candidate figures COMPUTED independently in Python with scipy.special.gammainc (the same series):
-// - 600 × 300 × 114 mm: UA = 350·1.5 = 525 W/K, NTU 3.3703, Cr 0.18244 → ε 0.92553, T 32.79 °C;
-//   density gain 314.366/305.942 − 1 = 2.75 %; Δp ∝ ṁ²·depth/area (common practice, no source)
-//   anchored at 8 kPa for 600 × 300 × 76 at 0.155 kg/s → 12.0 kPa (+4.0 kPa); power at the same
-//   compressor pressure ((220 − 12.0)/(220 − 8.0))·1.02754 − 1 = 0.81 %.
-// - 700 × 300 × 76 mm: UA = 350·0.21/0.18 = 408.34 W/K, cooling air 1.18·4·0.21 → Cr 0.15638,
-//   ε 0.88682, T 36.84 °C, density gain 1.41 %, Δp 6.86 kPa (−1.14 kPa), power 1.96 %.
+// UA scaling: 1/UA = 1/hA_charge + 1/hA_air, equal halves in the calibration (hA = 2·UA = 700 W/K
+// each, common practice, no source), each ∝ volume × speed^n (charge n = 0.8 Dittus–Boelter, air
+// n = 0.5 laminar fins; Incropera §8.5 and §7.2, from memory).
+// - 600 × 300 × 114 mm: volume ×1.5, charge flow area (height × depth) ×1.5 so charge speed ÷1.5:
+//   hA_charge = 700·1.5·1.5^−0.8 = 759.2, hA_air = 700·1.5 = 1050 → UA 440.6 W/K, NTU 2.8284,
+//   Cr 0.18244 → ε 0.89514, T 35.97 °C; density gain 314.366/309.122 − 1 = 1.70 %;
+//   Δp ∝ ṁ²·depth/area (common practice, no source) anchored at 8 kPa for 600 × 300 × 76 at
+//   0.155 kg/s → 12.0 kPa (+4.0 kPa); power at the same compressor pressure
+//   ((220 − 12.0)/(220 − 8.0))·1.01697 − 1 = −0.22 %: deeper is no uprate here.
+// - 700 × 300 × 76 mm: volume ×1.1667, same charge flow area and speeds → UA = 350·1.1667 =
+//   408.34 W/K, cooling air 1.18·4·0.21 → Cr 0.15638, ε 0.88682, T 36.84 °C, density gain 1.41 %,
+//   Δp 6.86 kPa (−1.14 kPa), power 1.96 %.
 
 const pull: SizingPull = {
   effectiveness: 0.84501,
@@ -72,17 +78,17 @@ describe('front-mount sizing, hand-worked example (reference sheet §6.3 CORE-1 
 
   it('predicts each candidate as worked by hand', () => {
     const byId = Object.fromEntries(result.candidates.map(c => [c.coreId, c]))
-    expect(byId[2]).toMatchObject({ uaWPerK: 525, predictedEffectiveness: 0.926, chargeTempC: 32.8, densityGainPct: 2.8, pressureDropChangeKpa: 4, powerRecoveredPct: 0.8 })
+    expect(byId[2]).toMatchObject({ uaWPerK: 440.6, predictedEffectiveness: 0.895, chargeTempC: 36, densityGainPct: 1.7, pressureDropChangeKpa: 4, powerRecoveredPct: -0.2 })
     expect(byId[3]).toMatchObject({ uaWPerK: 408.3, predictedEffectiveness: 0.887, chargeTempC: 36.8, densityGainPct: 1.4, pressureDropChangeKpa: -1.1, powerRecoveredPct: 2 })
     expect(byId[1]).toMatchObject({ chargeTempC: 41.2, densityGainPct: 0, powerRecoveredPct: 0, pressureDropChangeKpa: 0 })
   })
 
-  it('ranks by power recovered, so the wider core beats the deeper one that costs more pressure drop', () => {
-    expect(result.candidates.map(c => c.coreId)).toEqual([3, 2, 1])
+  it('ranks by power recovered: the wider core first, the deeper one that costs pressure drop below the fitted core', () => {
+    expect(result.candidates.map(c => c.coreId)).toEqual([3, 1, 2])
     expect(result.candidates.map(c => c.rank)).toEqual([1, 2, 3])
-    expect(result.candidates[0]!.reason).toMatch(/^Best: .*1\.1 kPa less pressure drop/)
-    expect(result.candidates[1]!.reason).toMatch(/4\.0 kPa more pressure drop, a gain within normal dyno run-to-run spread/)
-    expect(result.candidates[2]!.reason).toMatch(/fitted when the log was made/)
+    expect(result.candidates[0]!.reason).toMatch(/^Best: .*1\.1 kPa less pressure drop, a gain within normal dyno run-to-run spread/)
+    expect(result.candidates[1]!.reason).toMatch(/fitted when the log was made/)
+    expect(result.candidates[2]!.reason).toMatch(/4\.0 kPa more pressure drop\), so it is no uprate/)
   })
 
   it('uses the mean MAF reading over the pulls when the log has one', () => {
