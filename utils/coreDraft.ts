@@ -1,4 +1,4 @@
-import type { CoreView } from '../shared/types/cores'
+import type { CoreView } from '#shared/types/cores'
 import {
   CORE_BOUNDS,
   FIN_DENSITY_BOUNDS,
@@ -8,7 +8,7 @@ import {
   type CoreKind,
   type EndTankLayout,
   type FinDensityUnit,
-} from '../shared/utils/cores'
+} from '#shared/utils/cores'
 
 // What the core form edits: numbers as typed (null when empty), money as text in the currency's
 // major unit. `draftToBody` turns it into the API body and says what is wrong, field by field.
