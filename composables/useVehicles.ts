@@ -1,3 +1,5 @@
+import type { CoreView } from '#shared/types/cores'
+
 export function useVehicles() {
   return useFetch('/api/vehicles', { key: 'vehicles', default: () => [] })
 }
@@ -11,5 +13,5 @@ export function useCustomers() {
 }
 
 export function useCores() {
-  return useFetch('/api/cores', { key: 'cores', default: () => [] })
+  return useFetch<CoreView[]>('/api/cores', { key: 'cores', default: () => [] })
 }

@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm'
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
+import { CORE_CONSTRUCTIONS, CORE_KINDS, END_TANK_LAYOUTS, FIN_DENSITY_UNITS } from '../shared/utils/cores'
 import { ROLES } from '../shared/utils/roles'
 
 // Every feature table carries workshop_id so a query can always be scoped with one WHERE.
@@ -12,9 +13,7 @@ export const LOG_STATUSES = ['analysed', 'failed'] as const
 export const QUOTE_STATUSES = ['draft', 'sent', 'accepted', 'deposit_paid', 'in_progress', 'completed', 'declined', 'expired', 'cancelled'] as const
 export const PAYMENT_STATUSES = ['pending', 'succeeded', 'failed', 'refunded'] as const
 export const OUTBOX_STATUSES = ['queued', 'sent', 'failed'] as const
-export const CORE_CONSTRUCTIONS = ['bar-and-plate', 'tube-and-fin'] as const
-export const FIN_DENSITY_UNITS = ['per-inch', 'per-10cm'] as const
-export const END_TANK_LAYOUTS = ['same-side', 'opposite-sides'] as const
+export { CORE_CONSTRUCTIONS, END_TANK_LAYOUTS, FIN_DENSITY_UNITS } from '../shared/utils/cores'
 export const COMPARISON_SIDES = ['before', 'after'] as const
 export const CORRECTION_STANDARDS = ['sae-j1349-2004', 'sae-j1349-1990', 'iso-1585', 'din-70020'] as const
 
@@ -75,7 +74,7 @@ export const cores = sqliteTable('cores', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   workshopId: integer('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),
   name: text('name').notNull(),
-  kind: text('kind', { enum: ['stock', 'front-mount', 'top-mount', 'air-to-water'] }).notNull(),
+  kind: text('kind', { enum: CORE_KINDS }).notNull(),
   faceWidthMm: integer('face_width_mm').notNull(),
   faceHeightMm: integer('face_height_mm').notNull(),
   depthMm: integer('depth_mm').notNull(),

@@ -35,8 +35,10 @@ export function assertDriverOfWorkshop(actor: Actor, ownerId: number) {
   if (owner.role !== 'driver') badRequest('ownerId: a car belongs to a customer (driver) account. Pick a customer, not a staff member.')
 }
 
-export function assertCoreOfWorkshop(actor: Actor, coreId: number | null | undefined) {
+// A retired core is not offered for new fitting; a car that already has it may keep it.
+export function assertCoreOfWorkshop(actor: Actor, coreId: number | null | undefined, currentCoreId?: number | null) {
   if (coreId == null) return
-  const core = useDb().select({ id: tables.cores.id }).from(tables.cores).where(and(eq(tables.cores.id, coreId), eq(tables.cores.workshopId, actor.workshopId))).get()
+  const core = useDb().select({ id: tables.cores.id, retiredAt: tables.cores.retiredAt }).from(tables.cores).where(and(eq(tables.cores.id, coreId), eq(tables.cores.workshopId, actor.workshopId))).get()
   if (!core) badRequest('fittedCoreId: no core with that id in your catalogue. Pick one from the core catalogue or leave it empty.')
+  if (core.retiredAt && coreId !== currentCoreId) badRequest('Fitted core: that core is retired from the catalogue. Pick a current core, or bring it back in the catalogue first.')
 }

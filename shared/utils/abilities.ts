@@ -51,5 +51,7 @@ export const canViewCoreEvidence = (actor: Actor) => isStaff(actor)
 // Core catalogue and quotes are the fabricator's trade.
 export const canViewCores = (actor: Actor) => isStaff(actor)
 export const canManageCores = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
+// Sizing reads a car's log and the catalogue; the tuner recommends, the fabricator quotes from it.
+export const canSizeCores = (actor: Actor) => isStaff(actor)
 export const canManageQuotes = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
 export const canViewQuote = (actor: Actor, quote: { customerId: number }) => canManageQuotes(actor) || quote.customerId === actor.id

@@ -12,7 +12,8 @@ export function navigationFor(role: Role): NavItem[] {
   if (role !== 'driver') items.push({ to: '/vehicles', label: 'Cars' })
   // The fabricator reads the reports to size a core; the driver finds logs on their car's page.
   if (role !== 'driver') items.push({ to: '/logs', label: 'Logs' })
-  if (role === 'owner' || role === 'fabricator') items.push({ to: '/cores', label: 'Core catalogue' })
+  // The tuner reads the catalogue (read-only) to recommend a core.
+  if (role !== 'driver') items.push({ to: '/cores', label: 'Core catalogue' })
   if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
   items.push({ to: '/account', label: 'My account' })
   return items

@@ -12,7 +12,7 @@ export default defineEventHandler(async (event) => {
     if (!canReassignVehicle(actor)) forbidden('Only the workshop can move a car to another customer.')
     assertDriverOfWorkshop(actor, changes.ownerId)
   }
-  assertCoreOfWorkshop(actor, changes.fittedCoreId)
+  assertCoreOfWorkshop(actor, changes.fittedCoreId, vehicle.fittedCoreId)
 
   return useDb().transaction((tx) => {
     const row = tx.update(tables.vehicles).set({ ...changes, updatedAt: new Date() }).where(eq(tables.vehicles.id, id)).returning().get()

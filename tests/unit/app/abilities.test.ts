@@ -30,6 +30,14 @@ describe('abilities', () => {
     expect(abilities.canManageQuotes(actor('fabricator'))).toBe(true)
   })
 
+  it('lets owner and fabricator change the catalogue, the tuner read it, and every staff role size a core', () => {
+    for (const role of ROLES) {
+      expect(abilities.canViewCores(actor(role))).toBe(role !== 'driver')
+      expect(abilities.canManageCores(actor(role))).toBe(role === 'owner' || role === 'fabricator')
+      expect(abilities.canSizeCores(actor(role))).toBe(role !== 'driver')
+    }
+  })
+
   it('keeps deleting a car with the workshop, not the customer', () => {
     expect(abilities.canDeleteVehicle(actor('driver'))).toBe(false)
     expect(abilities.canDeleteVehicle(actor('tuner'))).toBe(true)
@@ -68,7 +76,7 @@ describe('navigation', () => {
   it('offers each role only the places it can use', () => {
     const labels = (role: Role) => navigationFor(role).map(item => item.label)
     expect(labels('owner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices', 'My account'])
-    expect(labels('tuner')).toEqual(['Overview', 'Cars', 'Logs', 'My account'])
+    expect(labels('tuner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'My account'])
     expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'My account'])
     expect(labels('driver')).toEqual(['My cars', 'My account'])
   })
