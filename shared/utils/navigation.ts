@@ -13,6 +13,8 @@ export function navigationFor(role: Role): NavItem[] {
   // The fabricator reads the reports to size a core; the driver finds logs on their car's page.
   if (role !== 'driver') items.push({ to: '/logs', label: 'Logs' })
   if (role === 'owner' || role === 'fabricator') items.push({ to: '/cores', label: 'Core catalogue' })
+  // The driver finds their quotes on their car's page.
+  if (role !== 'driver') items.push({ to: '/quotes', label: 'Quotes' })
   if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
   items.push({ to: '/account', label: 'My account' })
   return items
