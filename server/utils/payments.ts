@@ -191,7 +191,7 @@ function page(title: string, body: string) {
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${escapeHtml(title)} · Practice checkout</title>
 <style>
-body{margin:0;font-family:system-ui,sans-serif;background:#eef1ec;color:#1d2430}
+body{margin:0;padding:0 1rem;font-family:system-ui,sans-serif;background:#eef1ec;color:#1d2430}
 main{max-width:26rem;margin:2rem auto;padding:1.5rem;background:#fff;border:1px solid #cfd6cc;border-radius:12px}
 h1{font-size:1.25rem;margin:0 0 .25rem}.amount{font-size:2rem;font-weight:600;margin:.75rem 0}
 .note{background:#fff6dc;border:1px solid #e7d08a;border-radius:8px;padding:.6rem .8rem;font-size:.9rem}

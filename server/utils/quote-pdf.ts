@@ -25,14 +25,18 @@ export interface QuotePdfInput {
   sizingNote: string | null
 }
 
-
-// The shipped font is a Latin subset; a character it lacks is shown without its accent, or as "?".
-const IN_FONT = /[\u0000-\u00FF\u0131\u0152\u0153\u02BB\u02BC\u02C6\u02DA\u02DC\u2000-\u206F\u20AC\u2122\u2212]/u
+// The shipped font is its Latin subset (Latin-1, general punctuation, the euro sign…); a character
+// it lacks is printed without its accent, or as "?", rather than as an empty box.
+const EXTRA = new Set([0x131, 0x152, 0x153, 0x2BB, 0x2BC, 0x2C6, 0x2DA, 0x2DC, 0x20AC, 0x2122, 0x2212])
+function inFont(ch: string) {
+  const c = ch.codePointAt(0) ?? 0
+  return c <= 0xFF || (c >= 0x2000 && c <= 0x206F) || EXTRA.has(c)
+}
 export function printable(text: string) {
   return Array.from(text).map((ch) => {
-    if (IN_FONT.test(ch)) return ch
+    if (inFont(ch)) return ch
     const bare = ch.normalize('NFKD').replace(/\p{M}/gu, '')
-    return Array.from(bare).every(c => IN_FONT.test(c)) && bare ? bare : '?'
+    return bare && Array.from(bare).every(inFont) ? bare : '?'
   }).join('')
 }
 

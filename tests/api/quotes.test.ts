@@ -178,7 +178,7 @@ describe('POST /api/quotes', () => {
   ]
   it.each(bad)('refuses %s with a message and stores nothing', async (_what, change, message) => {
     const before = footprint()
-    const body = { vehicleId: ids.driverCar, lines: LINES, taxRatePct: 20, ...change }
+    const body: Record<string, unknown> = { vehicleId: ids.driverCar, lines: LINES, taxRatePct: 20, ...change }
     if (body.vehicleId === 0) body.vehicleId = ids.foreignCar
     if (body.coreId === -1) body.coreId = ids.foreignCore
     const reply = await clients.fabricator.post<{ message: string }>('/api/quotes', body)
