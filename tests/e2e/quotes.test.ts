@@ -48,6 +48,10 @@ describe('a quote from the fabricator to the paid deposit', () => {
       await expect(page.getByTestId('quote-status').textContent()).resolves.toBe('Sent')
       await screenshot(page, 'quotes-desktop-fabricator-sent')
       expect(one<{ n: number }>('select count(*) n from outbox where kind = \'quote\' and subject like ?', `%${quoteNumber}%`).n).toBe(1)
+
+      await page.getByRole('link', { name: 'Quotes', exact: true }).click()
+      await page.getByTestId('quote-list').getByRole('link', { name: `Quote ${quoteNumber}` }).waitFor()
+      await screenshot(page, 'quotes-desktop-list')
     }
     finally {
       await browser.close()

@@ -13,13 +13,16 @@ const query = z.object({
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
   requireQuoteWriter(actor)
-  const { vehicleId, coreId, sizingId } = readQueryWith(event, query)
+  const { vehicleId, coreId: askedCoreId, sizingId } = readQueryWith(event, query)
   const db = useDb()
   const workshop = db.select().from(tables.workshops).where(eq(tables.workshops.id, actor.workshopId)).get()!
-  const core = coreId ? db.select().from(tables.cores).where(and(eq(tables.cores.id, coreId), eq(tables.cores.workshopId, actor.workshopId))).get() ?? null : null
   const sizing = sizingId && vehicleId
     ? db.select().from(tables.sizings).where(and(eq(tables.sizings.id, sizingId), eq(tables.sizings.workshopId, actor.workshopId), eq(tables.sizings.vehicleId, vehicleId))).get() ?? null
     : null
+  // Without a core in the address, the sizing's first-ranked candidate is the one quoted.
+  const candidates = (sizing?.result as { candidates?: Array<{ coreId: number, rank: number }> } | undefined)?.candidates ?? []
+  const coreId = askedCoreId ?? candidates.find(c => c.rank === 1)?.coreId
+  const core = coreId ? db.select().from(tables.cores).where(and(eq(tables.cores.id, coreId), eq(tables.cores.workshopId, actor.workshopId))).get() ?? null : null
   const sizingText = sizing && core ? sizingNote({ design: sizing.design, result: sizing.result }, core.id, core.name) : null
   return {
     currency: workshop.currency,
