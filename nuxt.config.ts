@@ -35,6 +35,9 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },
+    // The shipped font, bundled into the server for quote PDFs (nothing is read from node_modules
+    // at run time). Paths are relative to server/.
+    serverAssets: [{ baseName: 'fonts', dir: '../node_modules/@fontsource/roboto-flex/files', pattern: 'roboto-flex-latin-400-normal.woff' }],
   },
   typescript: {
     strict: true,

@@ -50,7 +50,7 @@ export async function seedDemoIfEmpty(db: Db) {
       { workshopId: kestrel.id, ownerId: k['driver2@kestrel.test']!.id, description: '1.8 L four-cylinder turbo-petrol estate', registration: 'KR 19 PTL', displacementL: 1.8, cylinders: 4, fuel: 'petrol', ratedPowerKw: 132, notes: '' },
       { workshopId: harbourside.id, ownerId: h['driver@harbourside.test']!.id, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HB 20 TOW', displacementL: 3.0, cylinders: 6, fuel: 'diesel', ratedPowerKw: 190, notes: 'Tows a boat trailer up the slipway.' },
     ]).run()
-    return { kestrel, tuner: k['tuner@kestrel.test']!, hatchback, stock, frontMount }
+    return { kestrel, tuner: k['tuner@kestrel.test']!, fabricator: k['fab@kestrel.test']!, hatchback, stock, frontMount }
   })
 
   // Two invented logs of the hatchback, stored exactly as an upload would store them: a mild
@@ -77,6 +77,7 @@ export async function seedDemoIfEmpty(db: Db) {
     stored[entry.coreId === seeded.stock.id ? 'before' : 'after'].push(log.id)
   }
   seedDemoComparison(db, actor, seeded.hatchback.id, stored)
+  await seedDemoQuote(db, { workshopId: seeded.kestrel.id, fabricatorId: seeded.fabricator.id, vehicleId: seeded.hatchback.id, coreId: seeded.frontMount.id })
   return true
 }
 

@@ -54,4 +54,7 @@ export const canManageCores = (actor: Actor) => actor.role === 'owner' || actor.
 // Sizing reads a car's log and the catalogue; the tuner recommends, the fabricator quotes from it.
 export const canSizeCores = (actor: Actor) => isStaff(actor)
 export const canManageQuotes = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
-export const canViewQuote = (actor: Actor, quote: { customerId: number }) => canManageQuotes(actor) || quote.customerId === actor.id
+// Staff read every quote of the workshop (the tuner too); a customer only their own.
+export const canViewQuote = (actor: Actor, quote: { customerId: number }) => isStaff(actor) || quote.customerId === actor.id
+// Accepting, declining and paying the deposit are the customer's answers, nobody else's.
+export const canAnswerQuote = (actor: Actor, quote: { customerId: number }) => actor.role === 'driver' && quote.customerId === actor.id

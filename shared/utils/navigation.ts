@@ -14,6 +14,8 @@ export function navigationFor(role: Role): NavItem[] {
   if (role !== 'driver') items.push({ to: '/logs', label: 'Logs' })
   // The tuner reads the catalogue (read-only) to recommend a core.
   if (role !== 'driver') items.push({ to: '/cores', label: 'Core catalogue' })
+  // The driver finds their quotes on their car's page.
+  if (role !== 'driver') items.push({ to: '/quotes', label: 'Quotes' })
   if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
   items.push({ to: '/account', label: 'My account' })
   return items

@@ -81,6 +81,8 @@ export async function startServer(name: string, env: Record<string, string> = {}
       // Tests pose as different clients through X-Forwarded-For to exercise the per-address limit.
       NUXT_TRUST_PROXY: 'true',
       NUXT_PUBLIC_APP_URL: baseUrl,
+      // The local checkout signs its notices with this secret, so tests can sign (and forge) their own.
+      STRIPE_WEBHOOK_SECRET: 'whsec_test_only_densitas_0123456789',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

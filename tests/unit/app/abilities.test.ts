@@ -46,7 +46,19 @@ describe('abilities', () => {
   it('shows a customer their own quotes only', () => {
     expect(abilities.canViewQuote(actor('driver'), { customerId: 10 })).toBe(true)
     expect(abilities.canViewQuote(actor('driver'), { customerId: 11 })).toBe(false)
-    expect(abilities.canViewQuote(actor('tuner'), { customerId: 11 })).toBe(false)
+    // The tuner reads quotes (to see what was offered for the car) but does not write them.
+    expect(abilities.canViewQuote(actor('tuner'), { customerId: 11 })).toBe(true)
+    expect(abilities.canManageQuotes(actor('tuner'))).toBe(false)
+    expect(abilities.canManageQuotes(actor('owner'))).toBe(true)
+    expect(abilities.canManageQuotes(actor('driver'))).toBe(false)
+  })
+
+  it('lets only the quote\'s own customer accept, decline or pay it', () => {
+    expect(abilities.canAnswerQuote(actor('driver'), { customerId: 10 })).toBe(true)
+    expect(abilities.canAnswerQuote(actor('driver'), { customerId: 11 })).toBe(false)
+    for (const role of ['owner', 'tuner', 'fabricator'] as const) {
+      expect(abilities.canAnswerQuote(actor(role), { customerId: 10 })).toBe(false)
+    }
   })
 
   it('lets the owner and tuner build and delete comparisons; everyone who sees the car reads them', () => {
@@ -75,9 +87,9 @@ describe('abilities', () => {
 describe('navigation', () => {
   it('offers each role only the places it can use', () => {
     const labels = (role: Role) => navigationFor(role).map(item => item.label)
-    expect(labels('owner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices', 'My account'])
-    expect(labels('tuner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'My account'])
-    expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'My account'])
+    expect(labels('owner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'People', 'Workshop & prices', 'My account'])
+    expect(labels('tuner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'My account'])
+    expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'My account'])
     expect(labels('driver')).toEqual(['My cars', 'My account'])
   })
 })
