@@ -14,6 +14,8 @@ export function navigationFor(role: Role): NavItem[] {
   if (role !== 'driver') items.push({ to: '/logs', label: 'Logs' })
   if (role === 'owner' || role === 'fabricator') items.push({ to: '/cores', label: 'Core catalogue' })
   if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
+  // The fabricator follows the quote e-mails they send; the owner sees every e-mail.
+  if (role === 'owner' || role === 'fabricator') items.push({ to: '/outbox', label: 'Outbox' })
   items.push({ to: '/account', label: 'My account' })
   return items
 }
