@@ -1,7 +1,6 @@
 import { join } from 'node:path'
 import Database from 'better-sqlite3'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { inject } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import { DESKTOP, openBrowser, PHONE, screenshot, signInThroughPage, type Session } from './browser'
 
 // A quote e-mail with a PDF and one that failed, queued the way queueMail stores them (no route on
