@@ -70,6 +70,30 @@ describe('the outbox', () => {
     await screenshot(page, 'owner-outbox-after-retry')
   })
 
+  it('the tuner e-mails a report link and is told it went', async () => {
+    const db = new Database(join(inject('dataDir'), 'densitas.sqlite'), { readonly: true })
+    const logId = (db.prepare('select l.id from logs l join vehicles v on v.id = l.vehicle_id join users u on u.id = v.owner_id where u.email = ? limit 1').get('driver@kestrel.test') as { id: number }).id
+    db.close()
+    const tuner = await openBrowser(DESKTOP)
+    try {
+      await signInThroughPage(tuner.page, 'tuner@kestrel.test')
+      await tuner.page.getByTestId('home-tuner').waitFor()
+      await tuner.page.goto(`/logs/${logId}`)
+      await tuner.page.getByTestId('share-email').check()
+      await tuner.page.getByTestId('share-create').click()
+      const note = tuner.page.getByTestId('mail-delivery')
+      await note.waitFor()
+      await expect(note.textContent()).resolves.toContain('The report link was e-mailed to driver@kestrel.test.')
+      // The tuner has no outbox, so no link to it.
+      await expect(note.getByRole('link').count()).resolves.toBe(0)
+      await tuner.page.getByTestId('share-panel').scrollIntoViewIfNeeded()
+      await screenshot(tuner.page, 'tuner-share-emailed')
+    }
+    finally {
+      await tuner.close()
+    }
+  })
+
   it('fits a phone', async () => {
     const phone = await openBrowser(PHONE)
     try {
