@@ -27,6 +27,13 @@ export default defineNuxtConfig({
       perIp: 30,
       windowMinutes: 15,
     },
+    // E-mail (see server/utils/mail-config.ts): SMTP_URL, MAIL_FROM and MAIL_RETRY_DELAYS win.
+    mail: {
+      smtpUrl: '',
+      from: 'Densitas <no-reply@densitas.invalid>',
+      retryDelays: '10s,1m,5m,30m',
+      sweepSeconds: 5,
+    },
     public: {
       appUrl: 'http://localhost:3000',
     },

@@ -1,3 +1,4 @@
+import type { MailKind } from '#shared/utils/outbox'
 import type { Db } from './db'
 
 export interface MailAttachment {
@@ -11,13 +12,16 @@ export interface OutgoingMail {
   to: string
   subject: string
   text: string
-  kind: 'invite' | 'password-reset' | 'report-share' | 'comparison-share' | 'quote' | 'payment'
+  kind: MailKind
   attachments?: MailAttachment[]
 }
 
 // Every e-mail is written to the outbox first (inside the caller's transaction); delivery is a
-// separate step, so a failed SMTP server never loses a message or half-writes an action.
+// separate step, so a failed SMTP server never loses a message or half-writes an action. The
+// delivery loop is nudged here and looks only after the transaction has committed (see
+// deliverSoon). Callers that report to the screen pass the returned id to awaitFirstDelivery.
 export function queueMail(db: Pick<Db, 'insert'>, mail: OutgoingMail) {
+  deliverSoon()
   return db.insert(tables.outbox).values({
     workshopId: mail.workshopId,
     toEmail: mail.to,

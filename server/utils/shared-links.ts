@@ -22,7 +22,7 @@ const stillWorks = () => and(isNull(tables.shareLinks.revokedAt), or(isNull(tabl
  * Create a link (and, if asked, e-mail it to the car's customer) in one transaction. `mail`
  * words the message for what is shared.
  */
-export function createShareLink(actor: Actor & { name: string }, target: ShareTarget, options: z.infer<typeof shareBody>, vehicle: { ownerId: number }, mail: (to: { name: string }, url: string, expiresAt: Date, workshopName: string) => { subject: string, text: string, kind: 'report-share' | 'comparison-share' }) {
+export async function createShareLink(actor: Actor & { name: string }, target: ShareTarget, options: z.infer<typeof shareBody>, vehicle: { ownerId: number }, mail: (to: { name: string }, url: string, expiresAt: Date, workshopName: string) => { subject: string, text: string, kind: 'report-share' | 'comparison-share' }) {
   const { token, tokenHash } = newToken()
   const url = appLink(`/shared/${token}`)
   const expiresAt = new Date(Date.now() + options.expiresInDays * 86_400_000)
@@ -30,15 +30,17 @@ export function createShareLink(actor: Actor & { name: string }, target: ShareTa
   const driver = db.select().from(tables.users).where(eq(tables.users.id, vehicle.ownerId)).get()!
   const workshop = db.select({ name: tables.workshops.name }).from(tables.workshops).where(eq(tables.workshops.id, actor.workshopId)).get()!
   const entity = 'logId' in target ? { entity: 'log', entityId: target.logId } : { entity: 'comparison', entityId: target.comparisonId }
-  const link = db.transaction((tx) => {
+  const { link, mailId } = db.transaction((tx) => {
     const row = tx.insert(tables.shareLinks).values({ workshopId: actor.workshopId, ...target, tokenHash, createdById: actor.id, expiresAt }).returning().get()
-    if (options.emailDriver) {
-      queueMail(tx, { workshopId: actor.workshopId, to: driver.email, ...mail(driver, url, expiresAt, workshop.name) })
-    }
+    const mailId = options.emailDriver
+      ? queueMail(tx, { workshopId: actor.workshopId, to: driver.email, ...mail(driver, url, expiresAt, workshop.name) }).id
+      : null
     recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'shared', ...entity, detail: { shareLinkId: row.id, emailed: options.emailDriver ? driver.email : null } })
-    return row
+    return { link: row, mailId }
   })
-  return { id: link.id, url, expiresAt: link.expiresAt, emailedTo: options.emailDriver ? driver.email : null }
+  // Say whether the e-mail really went, not only that it was queued.
+  const delivery = mailId === null ? null : await awaitFirstDelivery(mailId)
+  return { id: link.id, url, expiresAt: link.expiresAt, emailedTo: options.emailDriver ? driver.email : null, mail: delivery }
 }
 
 export function shareLinksOf(target: ShareTarget) {

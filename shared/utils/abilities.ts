@@ -1,3 +1,4 @@
+import type { MailKind } from './outbox'
 import type { Role } from './roles'
 
 // One small predicate per permission, used by the API routes (authoritative) and by pages (cosmetic).
@@ -58,3 +59,18 @@ export const canManageQuotes = (actor: Actor) => actor.role === 'owner' || actor
 export const canViewQuote = (actor: Actor, quote: { customerId: number }) => isStaff(actor) || quote.customerId === actor.id
 // Accepting, declining and paying the deposit are the customer's answers, nobody else's.
 export const canAnswerQuote = (actor: Actor, quote: { customerId: number }) => actor.role === 'driver' && quote.customerId === actor.id
+
+// The outbox: the owner sees every e-mail of the workshop; the fabricator only the quote and
+// payment e-mails their own work sends (invitations and password resets carry sign-in links and
+// belong to the people side of the workshop). Everyone else has no outbox.
+const FABRICATOR_MAIL_KINDS: readonly MailKind[] = ['quote', 'payment']
+export const visibleMailKinds = (actor: Actor): readonly MailKind[] | 'all' =>
+  actor.role === 'owner' ? 'all' : actor.role === 'fabricator' ? FABRICATOR_MAIL_KINDS : []
+export const canViewOutbox = (actor: Actor) => {
+  const kinds = visibleMailKinds(actor)
+  return kinds === 'all' || kinds.length > 0
+}
+export const canViewOutboxMail = (actor: Actor, mail: { kind: string }) => {
+  const kinds = visibleMailKinds(actor)
+  return kinds === 'all' || (kinds as readonly string[]).includes(mail.kind)
+}

@@ -17,6 +17,8 @@ export function navigationFor(role: Role): NavItem[] {
   // The driver finds their quotes on their car's page.
   if (role !== 'driver') items.push({ to: '/quotes', label: 'Quotes' })
   if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
+  // The fabricator follows the quote e-mails they send; the owner sees every e-mail.
+  if (role === 'owner' || role === 'fabricator') items.push({ to: '/outbox', label: 'Outbox' })
   items.push({ to: '/account', label: 'My account' })
   return items
 }

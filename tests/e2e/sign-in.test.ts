@@ -2,9 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DESKTOP, openBrowser, PHONE, screenshot, signInThroughPage, type Session } from './browser'
 
 const ROLES = [
-  { email: 'owner@kestrel.test', role: 'owner', nav: ['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices'] },
+  { email: 'owner@kestrel.test', role: 'owner', nav: ['Overview', 'Cars', 'Logs', 'Core catalogue', 'People', 'Workshop & prices', 'Outbox'] },
   { email: 'tuner@kestrel.test', role: 'tuner', nav: ['Overview', 'Cars', 'Logs'] },
-  { email: 'fab@kestrel.test', role: 'fabricator', nav: ['Overview', 'Cars', 'Logs', 'Core catalogue'] },
+  { email: 'fab@kestrel.test', role: 'fabricator', nav: ['Overview', 'Cars', 'Logs', 'Core catalogue', 'Outbox'] },
   { email: 'driver@kestrel.test', role: 'driver', nav: ['My cars'] },
   { email: 'driver2@kestrel.test', role: 'driver', nav: ['My cars'] },
   { email: 'owner@harbourside.test', role: 'owner', nav: ['Overview', 'Logs', 'People'] },

@@ -43,6 +43,20 @@ describe('abilities', () => {
     expect(abilities.canDeleteVehicle(actor('tuner'))).toBe(true)
   })
 
+  it('opens the whole outbox to the owner and only the quote e-mails to the fabricator', () => {
+    expect(abilities.visibleMailKinds(actor('owner'))).toBe('all')
+    expect(abilities.canViewOutbox(actor('owner'))).toBe(true)
+    expect(abilities.canViewOutbox(actor('fabricator'))).toBe(true)
+    expect(abilities.canViewOutbox(actor('tuner'))).toBe(false)
+    expect(abilities.canViewOutbox(actor('driver'))).toBe(false)
+    for (const kind of ['invite', 'password-reset', 'report-share', 'quote', 'payment']) {
+      expect(abilities.canViewOutboxMail(actor('owner'), { kind })).toBe(true)
+      expect(abilities.canViewOutboxMail(actor('fabricator'), { kind })).toBe(kind === 'quote' || kind === 'payment')
+      expect(abilities.canViewOutboxMail(actor('tuner'), { kind })).toBe(false)
+      expect(abilities.canViewOutboxMail(actor('driver'), { kind })).toBe(false)
+    }
+  })
+
   it('shows a customer their own quotes only', () => {
     expect(abilities.canViewQuote(actor('driver'), { customerId: 10 })).toBe(true)
     expect(abilities.canViewQuote(actor('driver'), { customerId: 11 })).toBe(false)
@@ -87,9 +101,9 @@ describe('abilities', () => {
 describe('navigation', () => {
   it('offers each role only the places it can use', () => {
     const labels = (role: Role) => navigationFor(role).map(item => item.label)
-    expect(labels('owner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'People', 'Workshop & prices', 'My account'])
+    expect(labels('owner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'People', 'Workshop & prices', 'Outbox', 'My account'])
     expect(labels('tuner')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'My account'])
-    expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'My account'])
+    expect(labels('fabricator')).toEqual(['Overview', 'Cars', 'Logs', 'Core catalogue', 'Quotes', 'Outbox', 'My account'])
     expect(labels('driver')).toEqual(['My cars', 'My account'])
   })
 })

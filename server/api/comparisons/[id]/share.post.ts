@@ -4,7 +4,7 @@ export default defineEventHandler(async (event) => {
   const { comparison, vehicle } = findVisibleComparison(actor, id)
   if (!canShareReport(actor)) forbidden('Only a tuner or the workshop owner can share a comparison by link.')
   const options = await readBodyWith(event, shareBody)
-  const link = createShareLink(actor, { comparisonId: comparison.id }, options, vehicle, (driver, url, expiresAt, workshopName) => ({
+  const link = await createShareLink(actor, { comparisonId: comparison.id }, options, vehicle, (driver, url, expiresAt, workshopName) => ({
     kind: 'comparison-share' as const,
     subject: `Before and after: your intercooler comparison from ${workshopName}`,
     text: `Hello ${driver.name},\n\n${actor.name} of ${workshopName} has shared the before-and-after comparison of your ${vehicle.description}. Open it here (no sign-in needed) until ${expiresAt.toDateString()}:\n\n${url}\n\nReply to the workshop with any questions.`,

@@ -4,7 +4,7 @@ export default defineEventHandler(async (event) => {
   const { log, vehicle } = findVisibleLog(actor, id)
   if (!canShareReport(actor)) forbidden('Only a tuner or the workshop owner can share a report by link.')
   const options = await readBodyWith(event, shareBody)
-  const link = createShareLink(actor, { logId: log.id }, options, vehicle, (driver, url, expiresAt, workshopName) => ({
+  const link = await createShareLink(actor, { logId: log.id }, options, vehicle, (driver, url, expiresAt, workshopName) => ({
     kind: 'report-share' as const,
     subject: `Your heat-soak report from ${workshopName}`,
     text: `Hello ${driver.name},\n\n${actor.name} of ${workshopName} has shared the report on the log of your ${vehicle.description}. Open it here (no sign-in needed) until ${expiresAt.toDateString()}:\n\n${url}\n\nReply to the workshop with any questions.`,
