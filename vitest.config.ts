@@ -19,6 +19,8 @@ export default defineConfig({
           name: 'nuxt',
           include: ['tests/nuxt/**/*.test.ts'],
           environment: 'nuxt',
+          // Starting the Nuxt environment takes over 10 s on a loaded 2-core machine.
+          hookTimeout: 60_000,
         },
       }),
       {

@@ -1,10 +1,11 @@
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { CORRECTION_STANDARDS } from '../../db/schema'
+import { CURRENCIES } from '#shared/utils/currencies'
 
 const body = z.object({
   name: z.string().trim().min(2).max(120).optional(),
-  currency: z.enum(['EUR', 'GBP', 'USD', 'CHF', 'SEK', 'NOK', 'DKK', 'PLN', 'CZK', 'AUD', 'NZD', 'CAD']).optional(),
+  currency: z.enum(CURRENCIES).optional(),
   labourRateCents: z.number().int().min(0).max(10_000_000).optional(),
   depositPercent: z.number().int().min(0, 'deposit is 0–100 %').max(100, 'deposit is 0–100 %').optional(),
   correctionStandard: z.enum(CORRECTION_STANDARDS, { message: 'choose one of the listed correction standards' }).optional(),

@@ -192,9 +192,11 @@ export function cleanConditions(conditions: ConditionsInput): Record<string, num
   return clean
 }
 
-export function storedAnalysis(logId: number): AnalysisResult {
-  const row = useDb().select({ result: tables.analyses.result }).from(tables.analyses).where(eq(tables.analyses.logId, logId)).get()
+export async function storedAnalysis(logId: number): Promise<AnalysisResult> {
+  const row = useDb().select({ result: tables.analyses.result, engineVersion: tables.analyses.engineVersion }).from(tables.analyses).where(eq(tables.analyses.logId, logId)).get()
   if (!row) notFound('Analysis')
+  // Written by an older engine: analysed again from the stored file (server/utils/reanalyse.ts).
+  if (row.engineVersion !== ENGINE_VERSION) return reanalyseStale(logId, row.engineVersion)
   return row.result as unknown as AnalysisResult
 }
 

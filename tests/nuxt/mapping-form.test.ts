@@ -105,4 +105,38 @@ describe('MappingForm', () => {
     expect(wrapper.find('[data-testid="mapping-row-chargeTemp"] [data-testid="confidence-badge"]').text()).toBe('Set by you')
     expect(wrapper.find('[data-testid="mapping-row-time"] [data-testid="confidence-badge"]').text()).toBe('From profile')
   })
+
+  it('asks for the ambient temperature in words, with the range it accepts', async () => {
+    const wrapper = await mountSuspended(MappingForm, { props: { showErrors: true } })
+    expect(wrapper.find('[data-testid="ambient-prompt"]').text()).toBe('This log has no outside air temperature. Enter the temperature outside during the runs — without it the charge air cannot be compared with the air going in.')
+    expect(wrapper.text()).toContain('This log has no outside air temperature. Enter the temperature outside during the runs.')
+    await wrapper.find('[data-testid="condition-ambient"]').setValue('75')
+    expect(wrapper.text()).toContain('The outside temperature must be between −40 and 60 °C.')
+    await wrapper.find('[data-testid="condition-ambient"]').setValue('28,5')
+    expect(useUploadDraftStore().conditions.ambientTempC).toBe(28.5)
+    expect(wrapper.text()).not.toContain('must be between')
+  })
+
+  it('does not ask for ambient once the log has an ambient column', async () => {
+    const draft = useUploadDraftStore()
+    draft.loadDetected({ ...answer, mapping: { ...answer.mapping, ambientTemp: { column: 'Temp B (°F)', unit: 'degF', confidence: 0.8, source: 'auto', unitSource: 'header' } } })
+    const wrapper = await mountSuspended(MappingForm, { props: { showErrors: true } })
+    expect(wrapper.find('[data-testid="ambient-prompt"]').exists()).toBe(false)
+    expect(wrapper.find('[data-testid="condition-ambient"]').exists()).toBe(false)
+    expect(draft.problems.map(p => p.field)).not.toContain('ambientTempC')
+  })
+
+  it('asks for the site pressure when the log has boost but no barometric pressure', async () => {
+    const draft = useUploadDraftStore()
+    draft.loadDetected({ ...answer, needsBaro: true })
+    const wrapper = await mountSuspended(MappingForm)
+    expect(wrapper.find('[data-testid="upload-conditions"]').text()).toContain('The log has boost but no barometric pressure: give one of these, or sea level is assumed.')
+    expect(wrapper.find('[data-testid="condition-altitude"]').exists()).toBe(true)
+  })
+
+  it('says which column is missing when the charge temperature is cleared', async () => {
+    const wrapper = await mountSuspended(MappingForm, { props: { showErrors: true } })
+    await wrapper.find('[data-testid="mapping-column-chargeTemp"]').setValue('')
+    expect(wrapper.find('[data-testid="mapping-row-chargeTemp"]').text()).toContain('Choose the column with the charge air temperature (after the intercooler, often called intake air temperature).')
+  })
 })

@@ -39,4 +39,60 @@ describe('ReportVerdict', () => {
     expect(wrapper.find('[data-testid="verdict-headline"]').text()).toMatch(/No full-throttle runs/)
     expect(wrapper.find('[data-testid="verdict-consider"]').text()).toMatch(/closed course/)
   })
+
+  it('reads the exact words a driver sees for a fair soak on a 110 kW diesel', async () => {
+    const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1.8), vehicle } })
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('Some heat soak: the car loses a little power run after run')
+    // 40 → 49 °C over six pulls; 1 − 313.15/322.15 = 2.794 % of 110 kW = 3.07 kW.
+    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('Over six pulls the charge air climbed 9.0 K from the first to the last run, and the hottest run made about 2.8 % (about 3.1 kW) less power than the coolest.')
+    expect(wrapper.findAll('[data-testid="verdict-consider"] li').map(li => li.text())).toEqual([
+      'Give the car more time between hard runs; the charge air recovers as the core cools.',
+    ])
+    const facts = Object.fromEntries(wrapper.findAll('[data-testid="verdict-facts"] > div').map(div => [div.find('dt').text(), div.find('dd').text()]))
+    expect(facts).toMatchObject({
+      'Pulls analysed': '6',
+      'Charge-air rise, first to last pull': '9.0 K',
+      'Soak per pull': '1.80 K per pull (fit R² 0.98)',
+      'Mean rise over outside air': '14.5 K',
+      'Most power lost vs coolest pull': '2.8 %',
+      'Core recovery time constant': '80 s',
+    })
+  })
+
+  it('marks an estimated effectiveness and warns when the core removes little heat', async () => {
+    const analysis = analysisWith(1.8)
+    analysis.summary.meanEffectiveness = 0.55
+    analysis.summary.effectivenessSource = 'estimated'
+    const wrapper = await mountSuspended(Verdict, { props: { analysis, vehicle } })
+    const facts = wrapper.findAll('[data-testid="verdict-facts"] dd').map(dd => dd.text())
+    expect(facts).toContain('55 % (estimated)')
+    expect(wrapper.find('[data-testid="verdict-consider"]').text()).toContain('The intercooler removes only about 55 % of the heat it could: check for a blocked or damaged core and for air going around it.')
+  })
+
+  it('says the ambient temperature was typed in when it was not logged', async () => {
+    const analysis = analysisWith(1.8)
+    analysis.summary.ambientSource = 'entered'
+    const wrapper = await mountSuspended(Verdict, { props: { analysis, vehicle } })
+    expect(wrapper.find('[data-testid="verdict-assumptions"]').text()).toMatch(/The outside air temperature was entered by hand, not logged\.$/)
+    const logged = await mountSuspended(Verdict, { props: { analysis: analysisWith(1.8), vehicle } })
+    expect(logged.find('[data-testid="verdict-assumptions"]').text()).not.toContain('entered by hand')
+  })
+
+  it('does not judge soak from a single pull', async () => {
+    const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1, 1), vehicle } })
+    expect(wrapper.find('[data-testid="verdict"]').attributes('data-level')).toBe('unknown')
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('One full-throttle run: not enough to judge heat soak')
+    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('In the one run found, the charge air sat 10.0 K above the outside air.')
+  })
+
+  it('calls heavy soak poor, in the danger tone, and names a bigger core and knock on a petrol car', async () => {
+    const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(4), vehicle: { ratedPowerKw: 132, fuel: 'petrol' } } })
+    const box = wrapper.find('[data-testid="verdict"]')
+    expect(box.attributes('data-level')).toBe('poor')
+    expect(box.classes()).toContain('bg-danger-soft')
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('Heavy heat soak: the car loses noticeable power as it heats up')
+    const consider = wrapper.find('[data-testid="verdict-consider"]').text()
+    expect(consider).toContain('larger intercooler core')
+    expect(consider).toContain('risk of knock')
+  })
 })

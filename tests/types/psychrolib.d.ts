@@ -13,6 +13,7 @@ declare module 'psychrolib' {
     GetMoistAirVolume(tDryBulbC: number, humRatio: number, pressurePa: number): number
     GetTDewPointFromRelHum(tDryBulbC: number, relHum: number): number
     GetTDewPointFromHumRatio(tDryBulbC: number, humRatio: number, pressurePa: number): number
+    GetTDewPointFromVapPres(tDryBulbC: number, vapPresPa: number): number
     GetVapPresFromHumRatio(humRatio: number, pressurePa: number): number
     GetStandardAtmPressure(altitudeM: number): number
     GetStandardAtmTemperature(altitudeM: number): number

@@ -1,4 +1,4 @@
-export default defineEventHandler((event) => {
+export default defineEventHandler(async (event) => {
   const { token } = readParamsWith(event, tokenParams)
   setResponseHeader(event, 'cache-control', 'private, no-store')
   const link = findShareLink(token)
@@ -9,5 +9,5 @@ export default defineEventHandler((event) => {
   const { log, vehicle, workshopName } = findSharedLog(token)
   // Read-only and without the uploader's details or the column mapping.
   const { mapping: _mapping, uploadedByName: _uploader, ...detail } = logDetail(log, vehicle)
-  return { kind: 'log' as const, workshopName, vehicleDescription: vehicle.description, log: detail, analysis: storedAnalysis(log.id) }
+  return { kind: 'log' as const, workshopName, vehicleDescription: vehicle.description, log: detail, analysis: await storedAnalysis(log.id) }
 })

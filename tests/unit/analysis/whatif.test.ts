@@ -1,5 +1,4 @@
 import { describe, expect, it } from 'vitest'
-import { compressorOutletTempK } from '../../../server/analysis/compressor'
 import { whatIfAmbient } from '../../../server/analysis/whatif'
 
 describe('what-if ambient', () => {
@@ -12,13 +11,14 @@ describe('what-if ambient', () => {
     expect(result.pulls[0]!.deltaOverAmbientK).toBeCloseTo(331.4048 - 308.15, 3)
   })
 
-  it('agrees with the compressor relation: outlet temperature scales with inlet temperature (CMP-1 inputs)', () => {
-    // Compressor outlet at PR 2.2, η 0.72 from 25 °C and from 35 °C inlet; with ε = 0 the charge
-    // temperature is the outlet temperature, so the what-if must reproduce the relation exactly.
-    const at25 = compressorOutletTempK(298.15, 2.2, 0.72) - 273.15
-    const at35 = compressorOutletTempK(308.15, 2.2, 0.72) - 273.15
-    const result = whatIfAmbient([{ index: 0, meanChargeTempC: at25, ambientTempC: 25, preCoolerTempC: at25, effectiveness: 0 }], 35)
-    expect(result.pulls[0]!.chargeTempC).toBeCloseTo(at35, 9)
+  it('moves the compressor outlet temperature with the inlet temperature (reference sheet §4, CMP-1)', () => {
+    // With ε = 0 the charge temperature is the compressor outlet temperature, so the what-if must
+    // reproduce the compressor relation T2 = T1·[1 + (PR^0.2857 − 1)/η] at a new inlet temperature.
+    // Input: the sheet's worked value (COMPUTED, §4 table): T1 298.15 K, PR 2.2, η 0.72 → T2 402.778 K.
+    // Worked by hand at T1 = 308.15 K, same PR and η: PR^0.2857 = 1.2526653;
+    // T2 = 308.15 · (1 + 0.2526653/0.72) = 308.15 · 1.3509240 = 416.2872 K → 143.137 °C.
+    const result = whatIfAmbient([{ index: 0, meanChargeTempC: 402.778 - 273.15, ambientTempC: 25, preCoolerTempC: 402.778 - 273.15, effectiveness: 0 }], 35)
+    expect(result.pulls[0]!.chargeTempC).toBeCloseTo(143.137, 3)
   })
 
   it('holds the rise over ambient when the log gives no effectiveness', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { VERDICT_THRESHOLDS, verdictFor } from '../../../utils/verdict'
+import { verdictFor } from '../../../utils/verdict'
 import { analysisWith } from '../../fixtures/report'
 
 const diesel = { ratedPowerKw: 110, fuel: 'diesel' }
@@ -27,10 +27,13 @@ describe('verdictFor', () => {
     expect(v.consider.join(' ')).toMatch(/larger intercooler core/)
   })
 
-  it('puts the thresholds between fair and poor where they say', () => {
-    // 4 K steps ⇒ loss at pull 6 = 1 − 313.15/333.15 = 6.0 % > poorLossPct; 0.5 K ⇒ 0.8 % < goodLossPct.
-    expect(VERDICT_THRESHOLDS.goodLossPct).toBeLessThan(VERDICT_THRESHOLDS.poorLossPct)
-    expect(verdictFor(analysisWith(1.2), diesel).level).toBe('fair')
+  it('draws the lines at 1.5 % and 4 % of power lost (our own judgement, common practice, no source)', () => {
+    const withLoss = (lossPct: number) => {
+      const analysis = analysisWith(1)
+      analysis.summary.maxPowerLossVsCoolestPct = lossPct
+      return verdictFor(analysis, diesel).level
+    }
+    expect([1.49, 1.5, 3.99, 4].map(withLoss)).toEqual(['good', 'fair', 'fair', 'poor'])
   })
 
   it('speaks in the display units: °F differences and horsepower', () => {

@@ -88,8 +88,9 @@ describe('geometric ↔ geopotential altitude (ISO 2533 formulas (8), (9))', () 
     expect(rel(isaDensity(hM), 0.909254)).toBeLessThan(2e-6)
   })
 
-  it('round-trips', () => {
-    expect(geopotentialToGeometricM(geometricToGeopotentialM(2500))).toBeCloseTo(2500, 9)
+  it('back from geopotential: H 999.843 m → Z 1000 m, H 2998.585 m → Z 3000 m (sheet §1.3 table, COMPUTED)', () => {
+    expect(geopotentialToGeometricM(999.843)).toBeCloseTo(1000, 2)
+    expect(geopotentialToGeometricM(2998.585)).toBeCloseTo(3000, 2)
   })
 })
 

@@ -4,7 +4,7 @@ export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
   const { id } = readParamsWith(event, idParams)
   const { log, vehicle } = findVisibleLog(actor, id)
-  const analysis = storedAnalysis(log.id)
+  const analysis = await storedAnalysis(log.id)
   const lines = [
     csvLine(['Car', vehicle.description]),
     csvLine(['Log file', log.originalName]),

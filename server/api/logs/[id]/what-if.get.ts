@@ -5,5 +5,5 @@ export default defineEventHandler(async (event) => {
   const { id } = readParamsWith(event, idParams)
   const { ambientC } = readQueryWith(event, whatIfQuery)
   const { log } = findVisibleLog(actor, id)
-  return whatIfAmbient(storedAnalysis(log.id).pulls, ambientC)
+  return whatIfAmbient((await storedAnalysis(log.id)).pulls, ambientC)
 })

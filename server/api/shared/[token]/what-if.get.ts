@@ -1,8 +1,8 @@
 import { whatIfAmbient } from '../../../analysis/whatif'
 
-export default defineEventHandler((event) => {
+export default defineEventHandler(async (event) => {
   const { token } = readParamsWith(event, tokenParams)
   const { ambientC } = readQueryWith(event, whatIfQuery)
   const { log } = findSharedLog(token)
-  return whatIfAmbient(storedAnalysis(log.id).pulls, ambientC)
+  return whatIfAmbient((await storedAnalysis(log.id)).pulls, ambientC)
 })

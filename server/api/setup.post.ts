@@ -1,0 +1,21 @@
+// First-run setup: creates the first workshop and its owner, and signs the owner in. Open to anyone
+// only while the database has no workshop; from then on it answers 409 for good.
+export default defineEventHandler(async (event) => {
+  const db = useDb()
+  if (!isSetupOpen(db)) throw createError({ statusCode: 409, message: SETUP_CLOSED_MESSAGE })
+  const { password, ...input } = await readBodyWith(event, firstRunFields)
+  const passwordHash = await hashPassword(password)
+  let created: ReturnType<typeof createFirstWorkshop>
+  try {
+    created = createFirstWorkshop(db, input, passwordHash)
+  }
+  catch (error) {
+    // Another setup won the race while this one was hashing the password.
+    if (error instanceof SetupClosedError) throw createError({ statusCode: 409, message: SETUP_CLOSED_MESSAGE })
+    throw error
+  }
+  const user = toSessionUser(currentUserFromRow(created.owner))
+  await replaceUserSession(event, { user, loggedInAt: Date.now() })
+  setResponseStatus(event, 201)
+  return { user, workshop: { id: created.workshop.id, name: created.workshop.name, currency: created.workshop.currency } }
+})
