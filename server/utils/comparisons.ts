@@ -1,7 +1,7 @@
 import { and, desc, eq, inArray, type SQL } from 'drizzle-orm'
 import { canSeeAllVehicles, type Actor } from '#shared/utils/abilities'
 import { formatDate } from '#shared/utils/format'
-import { compareCores, ComparisonInputError, type BeforeAfterResult, type ComparisonLogInput } from '../analysis'
+import { compareCores, ComparisonInputError, type AnalysisResult, type BeforeAfterResult, type ComparisonLogInput } from '../analysis'
 import type { ComparisonLogMeta } from '#shared/types/comparison'
 import type { Db } from './db'
 
@@ -43,7 +43,7 @@ function coreNames(workshopId: number) {
  * Read the chosen logs and run the engine. Logs the actor cannot see are a 404; a log of another
  * car, or a choice the engine cannot compare, is a 422 naming the log. Nothing is written here.
  */
-export function computeComparison(actor: Actor, vehicle: VehicleRow, sides: { before: number[], after: number[] }, referenceAmbientC: number): StoredComparison {
+export async function computeComparison(actor: Actor, vehicle: VehicleRow, sides: { before: number[], after: number[] }, referenceAmbientC: number): Promise<StoredComparison> {
   const ids = [...new Set([...sides.before, ...sides.after])]
   const rows = ids.length
     ? useDb().select().from(tables.logs).where(and(inArray(tables.logs.id, ids), eq(tables.logs.workshopId, actor.workshopId))).all()
@@ -57,9 +57,11 @@ export function computeComparison(actor: Actor, vehicle: VehicleRow, sides: { be
     }
   }
   const names = coreNames(actor.workshopId)
+  const pullsOf = new Map<number, AnalysisResult['pulls']>()
+  for (const id of ids) pullsOf.set(id, (await storedAnalysis(id)).pulls)
   const input = (list: number[]): ComparisonLogInput[] => [...new Set(list)].map((id) => {
     const log = byId.get(id)!
-    return { logId: id, label: logLabel(log), pulls: storedAnalysis(id).pulls }
+    return { logId: id, label: logLabel(log), pulls: pullsOf.get(id)! }
   })
   let result: BeforeAfterResult
   try {

@@ -76,16 +76,16 @@ export async function seedDemoIfEmpty(db: Db) {
     })
     stored[entry.coreId === seeded.stock.id ? 'before' : 'after'].push(log.id)
   }
-  seedDemoComparison(db, actor, seeded.hatchback.id, stored)
+  await seedDemoComparison(db, actor, seeded.hatchback.id, stored)
   await seedDemoQuote(db, { workshopId: seeded.kestrel.id, fabricatorId: seeded.fabricator.id, vehicleId: seeded.hatchback.id, coreId: seeded.frontMount.id })
   return true
 }
 
 // The hatchback's before-and-after: a stored comparison of the two logs at 25 °C, and one dyno
 // run a side (invented figures: the after run was on a hotter, lower-pressure day).
-function seedDemoComparison(db: Db, actor: Actor, vehicleId: number, sides: Record<'before' | 'after', number[]>) {
+async function seedDemoComparison(db: Db, actor: Actor, vehicleId: number, sides: Record<'before' | 'after', number[]>) {
   const vehicle = db.select().from(tables.vehicles).where(eq(tables.vehicles.id, vehicleId)).get()!
-  const result = computeComparison(actor, vehicle, sides, 25)
+  const result = await computeComparison(actor, vehicle, sides, 25)
   db.transaction((tx) => {
     const comparison = tx.insert(tables.comparisons).values({
       workshopId: actor.workshopId,

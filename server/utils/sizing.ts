@@ -67,7 +67,7 @@ export async function runSizing(actor: Actor, input: z.infer<typeof sizingBody>)
     .where(and(eq(tables.logs.id, input.logId), eq(tables.logs.workshopId, actor.workshopId), eq(tables.logs.vehicleId, vehicle.id))).get()
   if (!log) notFound('Log')
   if (log.status !== 'analysed') unprocessable('That log has no analysis. Pick an analysed log of this car.')
-  const analysis = storedAnalysis(log.id)
+  const analysis = await storedAnalysis(log.id)
 
   // The core fitted when the log was made; a log that does not say falls back to the car's core.
   const fittedCoreId = log.coreId ?? vehicle.fittedCoreId

@@ -15,7 +15,7 @@ export default defineEventHandler(async (event) => {
   const input = await readBodyWith(event, body)
   const vehicle = findVisibleVehicle(actor, input.vehicleId)
   if (!canCompareLogs(actor)) forbidden('Only a tuner or the workshop owner builds comparisons. You can read the ones on this car.')
-  const result = computeComparison(actor, vehicle, { before: input.beforeLogIds, after: input.afterLogIds }, input.referenceAmbientC)
+  const result = await computeComparison(actor, vehicle, { before: input.beforeLogIds, after: input.afterLogIds }, input.referenceAmbientC)
   const row = useDb().transaction((tx) => {
     const comparison = tx.insert(tables.comparisons).values({
       workshopId: actor.workshopId,

@@ -6,7 +6,7 @@ export default defineEventHandler(async (event) => {
   const { id } = readParamsWith(event, idParams)
   const { comparison, vehicle } = findVisibleComparison(actor, id)
   if (!canCompareLogs(actor)) forbidden('Only a tuner or the workshop owner recomputes comparisons.')
-  const result = computeComparison(actor, vehicle, comparisonSides(comparison.id), comparison.referenceAmbientC)
+  const result = await computeComparison(actor, vehicle, comparisonSides(comparison.id), comparison.referenceAmbientC)
   const row = useDb().transaction((tx) => {
     const updated = tx.update(tables.comparisons).set({ result: result as unknown as Record<string, unknown>, computedAt: new Date(), staleAt: null })
       .where(eq(tables.comparisons.id, comparison.id)).returning().get()
