@@ -46,3 +46,8 @@ export interface SizingOptions {
 export function useSizingOptions(vehicleId: MaybeRefOrGetter<number>) {
   return useFetch<SizingOptions>('/api/sizing/options', { key: `sizing-options-${toValue(vehicleId)}`, query: computed(() => ({ vehicleId: toValue(vehicleId) })) })
 }
+
+// Every active core as one list, for the pickers (fitted core, core of a log, quote lines).
+export function useCoreChoices(enabled: MaybeRefOrGetter<boolean> = true) {
+  return useFetch<CoreView[]>('/api/cores', { key: 'core-choices', default: () => [], immediate: toValue(enabled) })
+}
