@@ -61,7 +61,7 @@ export async function seedDemoIfEmpty(db: Db) {
     await storeNewLog({
       actor,
       vehicle: db.select().from(tables.vehicles).where(eq(tables.vehicles.id, seeded.hatchback.id)).get()!,
-      bytes: new TextEncoder().encode(demo.csv),
+      file: { bytes: new TextEncoder().encode(demo.csv) },
       originalName: demo.fileName,
       conditions: {},
       notes: entry.notes,
