@@ -21,6 +21,7 @@ export interface StreamedUploadResult {
   /** File bytes written before the answer came (or the connection closed). */
   sentBeforeAnswer: number
   answeredAfterMs: number
+  retryAfter?: string
   error?: string
 }
 
@@ -66,7 +67,8 @@ export function streamUpload(options: StreamedUploadOptions): Promise<StreamedUp
       response.on('data', (text: string) => {
         body += text
       })
-      response.on('end', () => finish({ status: response.statusCode ?? 0, body }, at))
+      const retryAfter = response.headers['retry-after'] as string | undefined
+      response.on('end', () => finish({ status: response.statusCode ?? 0, body, retryAfter }, at))
       response.on('error', () => finish({ status: response.statusCode ?? 0, body }, at))
     })
     req.on('error', error => finish({ status: 0, body: '', error: error.message }, sent))
