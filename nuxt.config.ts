@@ -22,6 +22,14 @@ export default defineNuxtConfig({
     seedDemo: true,
     // Behind a reverse proxy, take the client address from X-Forwarded-For (for the sign-in limits).
     trustProxy: false,
+    // Log import and analysis run in worker threads: `threads` at once (0: one less than the
+    // cores, at least one), `queue` more waiting; past that an upload is answered 503 "busy".
+    analysis: {
+      threads: 0,
+      queue: 4,
+      // Set by modules/analysis-worker.ts in development; empty means beside the built server.
+      workerPath: '',
+    },
     loginLimit: {
       perEmail: 5,
       perIp: 30,

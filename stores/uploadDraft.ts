@@ -1,6 +1,7 @@
 import { defineStore } from 'pinia'
 import type { ChannelId, ColumnInfo, DetectResponse, LogMapping, LogProfile, MappingInput } from '#shared/types/report'
 import { MAPPABLE_CHANNELS } from '#shared/types/report'
+import { conditionBoundMessage, conditionInBounds, type ConditionKey } from '#shared/utils/conditions'
 
 export interface DraftChannel {
   /** Header of the chosen column; '' when the channel is not in the file. */
@@ -114,8 +115,15 @@ export const useUploadDraftStore = defineStore('uploadDraft', () => {
     if (needsAmbientTemp.value && (ambient === null || !Number.isFinite(ambient))) {
       list.push({ field: 'ambientTempC', message: 'This log has no outside air temperature. Enter the temperature outside during the runs.' })
     }
-    else if (needsAmbientTemp.value && ambient !== null && (ambient < -40 || ambient > 60)) {
-      list.push({ field: 'ambientTempC', message: 'The outside temperature must be between −40 and 60 °C.' })
+    else if (needsAmbientTemp.value && ambient !== null && !conditionInBounds('ambientTempC', ambient)) {
+      list.push({ field: 'ambientTempC', message: `${conditionBoundMessage('ambientTempC')}.` })
+    }
+    // The same bounds as the server's (shared/utils/conditions.ts); only the value that is sent counts.
+    const pressureKey = pressureSource.value === 'baro' ? 'baroKpa' : 'altitudeM'
+    const others: ConditionKey[] = [...(hasPressureSource.value ? [] : [pressureKey] as const), 'humidityPct']
+    for (const key of others) {
+      const value = conditions.value[key]
+      if (value !== null && !conditionInBounds(key, value)) list.push({ field: key, message: `${conditionBoundMessage(key)}.` })
     }
     const used = new Map<string, ChannelId>()
     for (const channel of MAPPABLE_CHANNELS) {

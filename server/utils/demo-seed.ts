@@ -68,7 +68,7 @@ export async function seedDemoIfEmpty(db: Db) {
     const { log } = await storeNewLog({
       actor,
       vehicle: db.select().from(tables.vehicles).where(eq(tables.vehicles.id, seeded.hatchback.id)).get()!,
-      bytes: new TextEncoder().encode(demo.csv),
+      file: { bytes: new TextEncoder().encode(demo.csv) },
       originalName: entry.fileName,
       conditions: {},
       notes: entry.notes,

@@ -1,16 +1,16 @@
-import { randomBytes, createHash } from 'node:crypto'
-import { mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs'
+import { createHash } from 'node:crypto'
+import { existsSync, mkdirSync, renameSync } from 'node:fs'
+import { rm, writeFile } from 'node:fs/promises'
 import { dirname, join } from 'node:path'
 import { and, eq, type SQL } from 'drizzle-orm'
 import type { Actor } from '#shared/utils/abilities'
 import {
-  analyseLog,
-  importLog,
   isLogImportError,
+  type AnalyseOptions,
   type AnalysisResult,
+  type ImportOptions,
   type ImportedLog,
   type LogMapping,
-  type LogSource,
   type MappingInput,
   type PullEdits,
 } from '../analysis'
@@ -53,7 +53,7 @@ export function asHttpError(error: unknown): never {
   throw error
 }
 
-function analyseOptions(conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits) {
+function analyseOptions(conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits): AnalyseOptions {
   return {
     ambientTempC: conditions.ambientTempC ?? undefined,
     altitudeM: conditions.altitudeM ?? undefined,
@@ -65,18 +65,38 @@ function analyseOptions(conditions: ConditionsInput, vehicle: VehicleRow, pullEd
   }
 }
 
-export async function importAndAnalyse(source: LogSource, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits) {
+function importOptions(mapping: MappingInput | undefined, conditions: ConditionsInput): ImportOptions {
+  return {
+    mapping,
+    altitudeM: conditions.altitudeM ?? undefined,
+    baroKpa: conditions.baroKpa ?? undefined,
+    maxRows: LOG_UPLOAD_LIMITS.maxRows,
+  }
+}
+
+// Import and analysis of a file run in the worker pool (server/utils/analysis-pool.ts).
+export async function importAndAnalyse(path: string, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits) {
   try {
-    const imported = await importLog(source, {
-      mapping,
-      altitudeM: conditions.altitudeM ?? undefined,
-      baroKpa: conditions.baroKpa ?? undefined,
-      maxRows: LOG_UPLOAD_LIMITS.maxRows,
-    })
-    const analysis = analyseLog(imported, analyseOptions(conditions, vehicle, pullEdits))
-    return { imported, analysis }
+    return await analyseInWorker({ path, importOptions: importOptions(mapping, conditions), analyseOptions: analyseOptions(conditions, vehicle, pullEdits) })
   }
   catch (error) {
+    asHttpError(error)
+  }
+}
+
+// A stored log analysed again with new conditions or pull edits, from its file and stored mapping.
+// A log deleted meanwhile is a 404, like any other missing log.
+export async function reanalyseStoredLog(log: LogRow, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits): Promise<AnalysisResult> {
+  try {
+    const { analysis } = await analyseInWorker({
+      path: logFilePath(log.id),
+      importOptions: importOptions(log.mapping as MappingInput, conditions),
+      analyseOptions: analyseOptions(conditions, vehicle, pullEdits),
+    })
+    return analysis
+  }
+  catch (error) {
+    if (!existsSync(logFilePath(log.id))) notFound('Log')
     asHttpError(error)
   }
 }
@@ -95,6 +115,7 @@ export function mappingForStorage(mapping: LogMapping): MappingInput {
 // time. Bounded: a few logs at most; keyed by the file's hash and mapping so edits invalidate it.
 const channelCache = new Map<string, ImportedLog>()
 const CHANNEL_CACHE_SIZE = 4
+const importsInFlight = new Map<string, Promise<ImportedLog>>()
 
 export async function loadImported(log: LogRow) {
   const key = `${log.id}:${log.sha256}:${JSON.stringify(log.mapping)}:${log.conditions.altitudeM ?? ''}:${log.conditions.baroKpa ?? ''}`
@@ -104,18 +125,24 @@ export async function loadImported(log: LogRow) {
     channelCache.set(key, cached)
     return cached
   }
+  const path = logFilePath(log.id)
   let imported: ImportedLog
   try {
-    imported = await importLog({ path: logFilePath(log.id) }, {
-      mapping: log.mapping as MappingInput,
-      altitudeM: log.conditions.altitudeM ?? undefined,
-      baroKpa: log.conditions.baroKpa ?? undefined,
-      maxRows: LOG_UPLOAD_LIMITS.maxRows,
-    })
+    // Readers of the same log (a report opens several charts at once) share one import.
+    let pending = importsInFlight.get(key)
+    if (!pending) {
+      pending = importInWorker({ path, importOptions: importOptions(log.mapping as MappingInput, log.conditions) })
+        .finally(() => importsInFlight.delete(key))
+      importsInFlight.set(key, pending)
+    }
+    imported = await pending
   }
   catch (error) {
+    // The log was deleted while its file was being read: it is gone, not broken.
+    if (!existsSync(path)) notFound('Log')
     asHttpError(error)
   }
+  if (!existsSync(path)) notFound('Log')
   for (const old of channelCache.keys()) {
     if (old.startsWith(`${log.id}:`)) channelCache.delete(old)
   }
@@ -130,10 +157,13 @@ export function forgetImported(logId: number) {
   }
 }
 
+/** The log file: bytes in memory (the demo seed), or a temporary file an upload streamed to disk. */
+export type NewLogFile = { bytes: Uint8Array } | { temporaryPath: string, sizeBytes: number, sha256: string }
+
 export interface NewLog {
   actor: Actor
   vehicle: VehicleRow
-  bytes: Uint8Array
+  file: NewLogFile
   originalName: string
   mapping?: MappingInput
   conditions: ConditionsInput
@@ -142,44 +172,59 @@ export interface NewLog {
   coreId?: number | null
 }
 
-// Analyse first, then write the file and the rows together: the file goes to a temporary name,
-// and is renamed to its id inside the transaction, so a failure leaves neither row nor file.
+export function incomingDir() {
+  return join(uploadsDir(), 'incoming')
+}
+
+// The file is analysed from a temporary name in the worker pool, then the rows are written and the
+// file renamed to its id inside one transaction, so a failure leaves neither row nor file.
 export async function storeNewLog(input: NewLog) {
-  const { actor, vehicle, bytes, originalName, conditions } = input
-  const { imported, analysis } = await importAndAnalyse(bytes, input.mapping, conditions, vehicle)
-  const temporary = join(uploadsDir(), 'logs', `.incoming-${randomBytes(8).toString('hex')}`)
-  mkdirSync(dirname(temporary), { recursive: true })
-  writeFileSync(temporary, bytes)
+  const { actor, vehicle, conditions } = input
+  let temporary: string
+  let sizeBytes: number
+  let sha256: string
+  if ('bytes' in input.file) {
+    temporary = temporaryUploadPath(incomingDir())
+    await writeFile(temporary, input.file.bytes)
+    sizeBytes = input.file.bytes.byteLength
+    sha256 = createHash('sha256').update(input.file.bytes).digest('hex')
+  }
+  else {
+    ({ temporaryPath: temporary, sizeBytes, sha256 } = input.file)
+  }
+  const originalName = cleanFileName(input.originalName)
   let finalPath: string | undefined
   try {
+    const { analysis, mapping, rowCount, durationS } = await importAndAnalyse(temporary, input.mapping, conditions, vehicle)
     const log = useDb().transaction((tx) => {
       const row = tx.insert(tables.logs).values({
         workshopId: actor.workshopId,
         vehicleId: vehicle.id,
         uploadedById: actor.id,
-        originalName: originalName.slice(0, 200),
-        sizeBytes: bytes.byteLength,
-        sha256: createHash('sha256').update(bytes).digest('hex'),
-        mapping: mappingForStorage(imported.mapping),
+        originalName,
+        sizeBytes,
+        sha256,
+        mapping: mappingForStorage(mapping),
         conditions: cleanConditions(conditions),
         status: 'analysed',
-        rowCount: imported.rowCount,
-        durationS: imported.durationS,
+        rowCount,
+        durationS,
         notes: input.notes ?? '',
         recordedOn: input.recordedOn ?? null,
         coreId: input.coreId !== undefined ? input.coreId : vehicle.fittedCoreId,
       }).returning().get()
       tx.insert(tables.analyses).values({ workshopId: actor.workshopId, logId: row.id, engineVersion: ENGINE_VERSION, result: analysis as unknown as Record<string, unknown> }).run()
-      recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'uploaded', entity: 'log', entityId: row.id, detail: { vehicleId: vehicle.id, originalName, sizeBytes: bytes.byteLength, rows: imported.rowCount } })
+      recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'uploaded', entity: 'log', entityId: row.id, detail: { vehicleId: vehicle.id, originalName, sizeBytes, rows: rowCount } })
       finalPath = logFilePath(row.id)
+      mkdirSync(dirname(finalPath), { recursive: true })
       renameSync(temporary, finalPath)
       return row
     })
     return { log, analysis }
   }
   catch (error) {
-    rmSync(temporary, { force: true })
-    if (finalPath) rmSync(finalPath, { force: true })
+    await rm(temporary, { force: true })
+    if (finalPath) await rm(finalPath, { force: true })
     throw error
   }
 }

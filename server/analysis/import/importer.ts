@@ -2,6 +2,7 @@
 // stream-parse → derive (boost + baro → absolute MAP). Every failure is a LogImportError.
 import { Buffer } from 'node:buffer'
 import { open } from 'node:fs/promises'
+import { CONDITION_BOUNDS } from '../../../shared/utils/conditions'
 import { isaPressureAtElevationPa } from '../atmosphere'
 import { CHANNELS, VALUE_CHANNEL_IDS } from '../channels'
 import type { ChannelId, LogChannels, TimeFormat, ValueChannelId } from '../channels'
@@ -218,8 +219,8 @@ function columnsByHeader(columns: readonly ColumnInfo[]): Map<string, ColumnInfo
 
 /** Import a log into canonical SI channels. */
 export async function importLog(source: LogSource, options: ImportOptions = {}): Promise<ImportedLog> {
-  checkNumberOption('altitudeM', options.altitudeM, -500, 9000, 'm')
-  checkNumberOption('baroKpa', options.baroKpa, 40, 115, 'kPa')
+  checkNumberOption('altitudeM', options.altitudeM, CONDITION_BOUNDS.altitudeM.min, CONDITION_BOUNDS.altitudeM.max, 'm')
+  checkNumberOption('baroKpa', options.baroKpa, CONDITION_BOUNDS.baroKpa.min, CONDITION_BOUNDS.baroKpa.max, 'kPa')
   checkNumberOption('staleLimitS', options.staleLimitS, 0, 3600, 's')
   checkNumberOption('maxRows', options.maxRows, 1, 1e9, 'rows')
   const { opened, text, sample } = await sampleOf(source)

@@ -3,7 +3,8 @@
 // generic engineering terms in English and German, not any logging program's labels.
 import { CHANNEL_IDS, CHANNELS, TIME_FORMATS, allowedUnits, isChannelId } from '../channels'
 import type { ChannelId, TimeFormat, ValueChannelId } from '../channels'
-import { conversionFor, isUnit, quantityOf } from '../units'
+import { FIXED_VALUE_BOUNDS, conditionBoundMessage, conditionInBounds } from '../../../shared/utils/conditions'
+import { conversionFor, isUnit, quantityOf, toSI } from '../units'
 import type { Unit } from '../units'
 import type { ColumnInfo } from './detect'
 import { guessNumericTimeFormat } from './detect'
@@ -318,9 +319,20 @@ export function parseMappingInput(input: unknown): MappingInput {
     if (unit !== undefined && !allowedUnits(key).includes(unit)) {
       throw new LogImportError('BAD_UNIT', `Unit "${unit}" is not valid for ${key}. Use one of: ${allowedUnits(key).join(', ')}.`, { channel: key })
     }
+    if (fixed !== undefined && key in FIXED_VALUE_BOUNDS) checkFixedValue(key as keyof typeof FIXED_VALUE_BOUNDS, fixed as number, unit)
     result[key] = { column, unit, value: fixed as number | undefined }
   }
   return result
+}
+
+// A fixed value obeys the same bounds as the condition the upload form asks for (shared/utils/conditions).
+function checkFixedValue(channel: keyof typeof FIXED_VALUE_BOUNDS, value: number, unit: string | undefined): void {
+  const { condition, fromSI } = FIXED_VALUE_BOUNDS[channel]
+  const siUnit = CHANNELS[channel].siUnit as Unit
+  const inConditionUnit = fromSI(toSI(value, (unit ?? siUnit) as Unit))
+  if (!conditionInBounds(condition, inConditionUnit)) {
+    throw new LogImportError('BAD_MAPPING', `${conditionBoundMessage(condition)}; the column mapping gives it as a fixed ${value} ${unit ?? siUnit}. Correct the value and try again.`, { channel })
+  }
 }
 
 /**

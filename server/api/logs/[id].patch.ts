@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
-import { analyseLog, type AnalysisResult, type PullEdits } from '../../analysis'
+import type { AnalysisResult, PullEdits } from '../../analysis'
 
 const nullableNumber = (label: string, min: number, max: number, unit: string) =>
   z.number({ message: `${label} must be a number` }).min(min, `${label} must be between ${min} and ${max} ${unit}`).max(max, `${label} must be between ${min} and ${max} ${unit}`).nullable().optional()
@@ -35,22 +35,8 @@ export default defineEventHandler(async (event) => {
   const reanalyse = changes.pullEdits !== undefined || ['ambientTempC', 'altitudeM', 'baroKpa', 'humidityPct'].some(key => key in changes)
 
   let analysis: AnalysisResult | undefined
-  if (reanalyse) {
-    const imported = await loadImported({ ...log, conditions })
-    try {
-      analysis = analyseLog(imported, {
-        ambientTempC: conditions.ambientTempC ?? undefined,
-        altitudeM: conditions.altitudeM ?? undefined,
-        baroKpa: conditions.baroKpa ?? undefined,
-        humidityPct: conditions.humidityPct ?? undefined,
-        ratedPowerKw: vehicle.ratedPowerKw ?? undefined,
-        pullEdits,
-      })
-    }
-    catch (error) {
-      asHttpError(error)
-    }
-  }
+  // In the analysis worker pool: a large log must not hold up everyone else's requests.
+  if (reanalyse) analysis = await reanalyseStoredLog(log, conditions, vehicle, pullEdits)
 
   const updated = useDb().transaction((tx) => {
     const row = tx.update(tables.logs).set({

@@ -1,97 +1,108 @@
+import { rm } from 'node:fs/promises'
+import type { H3Event } from 'h3'
 import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { parseMappingInput, type MappingInput } from '../../analysis'
 
-const optionalNumber = (label: string, min: number, max: number, unit: string) => z.preprocess(
-  value => value === '' || value === undefined ? undefined : value,
-  z.coerce.number({ message: `${label} must be a number` }).min(min, `${label} must be between ${min} and ${max} ${unit}`).max(max, `${label} must be between ${min} and ${max} ${unit}`).optional(),
-)
+const optionalNumber = (field: string, key: ConditionKey) => {
+  const { min, max, unit, label } = CONDITION_BOUNDS[key]
+  const range = `${field} (${label}) must be between ${min} and ${max} ${unit}`
+  return z.preprocess(
+    value => value === '' || value === undefined ? undefined : value,
+    z.coerce.number({ message: `${field} (${label}) must be a number` }).min(min, range).max(max, range).optional(),
+  )
+}
 
 const fields = z.object({
   vehicleId: z.coerce.number({ message: 'vehicleId: choose the car this log belongs to' }).int().positive('vehicleId: choose the car this log belongs to'),
   mapping: z.string().max(20_000).optional(),
-  ambientTempC: optionalNumber('ambientTempC (ambient temperature)', -40, 60, '°C'),
-  altitudeM: optionalNumber('altitudeM (site altitude)', -500, 6000, 'm'),
-  baroKpa: optionalNumber('baroKpa (barometric pressure)', 50, 110, 'kPa'),
-  humidityPct: optionalNumber('humidityPct (relative humidity)', 0, 100, '%'),
+  ambientTempC: optionalNumber('ambientTempC', 'ambientTempC'),
+  altitudeM: optionalNumber('altitudeM', 'altitudeM'),
+  baroKpa: optionalNumber('baroKpa', 'baroKpa'),
+  humidityPct: optionalNumber('humidityPct', 'humidityPct'),
   profileId: z.coerce.number().int().positive().optional(),
   notes: z.string().max(5000).optional(),
-  recordedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'recordedOn is a date like 2026-07-14').optional(),
+  recordedOn: z.string().max(40).superRefine((text, context) => {
+    const problem = recordedOnProblem(text)
+    if (problem) context.addIssue({ code: 'custom', message: problem })
+  }).optional(),
   coreId: z.coerce.number().int().positive().optional(),
 })
 
+// Text fields are small (the mapping is the largest, 20 000 characters of up to 4 bytes each).
+const FORM_LIMITS = { fileBytes: LOG_UPLOAD_LIMITS.maxBytes, fieldBytes: 96 * 1024, fields: 16 }
+const TOO_LARGE = `The file is larger than ${LOG_UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB. Trim the log to the session with the hard runs, or export fewer channels, and upload again.`
+
+// The body is streamed: fields into memory, the file straight to a temporary file, the byte limit
+// enforced while reading. Import and analysis then run in the worker pool; this request only waits.
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
   const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (declared > LOG_UPLOAD_LIMITS.maxBytes + 1024 * 1024) tooLarge()
+  if (declared > LOG_UPLOAD_LIMITS.maxBytes + 1024 * 1024) await refuse(event, 413, TOO_LARGE)
+  // Full already: say so before taking in the bytes.
+  if (analysisQueueFull()) await refuse(event, 503, BUSY_MESSAGE)
 
-  let parts: Awaited<ReturnType<typeof readMultipartFormData>>
+  const form = await receiveMultipart(event, { fileField: 'file', directory: incomingDir(), limits: FORM_LIMITS, tooLargeMessage: TOO_LARGE })
+  const temporary = form.file?.path
   try {
-    parts = await readMultipartFormData(event)
-  }
-  catch {
-    badRequest('The upload could not be read. Send the log as multipart/form-data with a "file" field.')
-  }
-  if (!parts) badRequest('Nothing was uploaded. Send the log as multipart/form-data with a "file" field.')
+    const parsed = fields.safeParse(form.fields)
+    if (!parsed.success) badRequest(`The upload form is not valid — ${describeIssues(parsed.error)}. Correct it and try again.`)
+    const input = parsed.data
 
-  const raw: Record<string, string> = {}
-  let file: { name: string, data: Buffer } | undefined
-  for (const part of parts) {
-    if (!part.name) continue
-    if (part.name === 'file') {
-      if (file) badRequest('Send one log file per upload.')
-      file = { name: part.filename ?? 'log.csv', data: part.data }
+    const vehicle = findVisibleVehicle(actor, input.vehicleId)
+    if (!canUploadLog(actor, vehicle)) forbidden('Your role cannot upload logs. Ask a tuner, or the car\'s owner.')
+    if (input.coreId !== undefined && !canChangeLogCore(actor)) forbidden('Only the workshop\'s staff record which core was fitted; leave the core out and the car\'s fitted core is used.')
+    assertCatalogueCore(actor, input.coreId)
+
+    const file = form.file
+    if (!file) badRequest('No file was attached. Choose the log file (.csv, .txt or .log) and send it again.')
+    const name = cleanFileName(file.name)
+    const problem = checkLogFile(name, file.sizeBytes)
+    if (problem) {
+      throw createError({ statusCode: file.sizeBytes > LOG_UPLOAD_LIMITS.maxBytes ? 413 : file.sizeBytes === 0 ? 400 : 415, message: problem })
     }
-    else {
-      raw[part.name] = part.data.toString('utf8')
+
+    let mapping: MappingInput | undefined
+    if (input.mapping) {
+      try {
+        mapping = parseMappingInput(input.mapping)
+      }
+      catch (error) {
+        asHttpError(error)
+      }
     }
-  }
-  const parsed = fields.safeParse(raw)
-  if (!parsed.success) badRequest(`The upload form is not valid — ${describeIssues(parsed.error)}. Correct it and try again.`)
-  const input = parsed.data
-
-  const vehicle = findVisibleVehicle(actor, input.vehicleId)
-  if (!canUploadLog(actor, vehicle)) forbidden('Your role cannot upload logs. Ask a tuner, or the car\'s owner.')
-  if (input.coreId !== undefined && !canChangeLogCore(actor)) forbidden('Only the workshop\'s staff record which core was fitted; leave the core out and the car\'s fitted core is used.')
-  assertCatalogueCore(actor, input.coreId)
-
-  if (!file) badRequest('No file was attached. Choose the log file (.csv, .txt or .log) and send it again.')
-  const problem = checkLogFile(file.name, file.data.byteLength)
-  if (problem) {
-    throw createError({ statusCode: file.data.byteLength > LOG_UPLOAD_LIMITS.maxBytes ? 413 : file.data.byteLength === 0 ? 400 : 415, message: problem })
-  }
-
-  let mapping: MappingInput | undefined
-  if (input.mapping) {
-    try {
-      mapping = parseMappingInput(input.mapping)
+    else if (input.profileId) {
+      const profile = useDb().select().from(tables.logProfiles)
+        .where(and(eq(tables.logProfiles.id, input.profileId), eq(tables.logProfiles.workshopId, actor.workshopId))).get()
+      if (!profile) notFound('Log profile')
+      mapping = profile.mapping as MappingInput
     }
-    catch (error) {
-      asHttpError(error)
-    }
-  }
-  else if (input.profileId) {
-    const profile = useDb().select().from(tables.logProfiles)
-      .where(and(eq(tables.logProfiles.id, input.profileId), eq(tables.logProfiles.workshopId, actor.workshopId))).get()
-    if (!profile) notFound('Log profile')
-    mapping = profile.mapping as MappingInput
-  }
 
-  const { log } = await storeNewLog({
-    actor,
-    vehicle,
-    bytes: file.data,
-    originalName: file.name,
-    mapping,
-    conditions: { ambientTempC: input.ambientTempC, altitudeM: input.altitudeM, baroKpa: input.baroKpa, humidityPct: input.humidityPct },
-    notes: input.notes,
-    recordedOn: input.recordedOn,
-    coreId: input.coreId,
-  })
-  setResponseStatus(event, 201)
-  return logDetail(log, vehicle)
+    const { log } = await storeNewLog({
+      actor,
+      vehicle,
+      file: { temporaryPath: file.path, sizeBytes: file.sizeBytes, sha256: file.sha256 },
+      originalName: name,
+      mapping,
+      conditions: { ambientTempC: input.ambientTempC, altitudeM: input.altitudeM, baroKpa: input.baroKpa, humidityPct: input.humidityPct },
+      notes: input.notes,
+      recordedOn: input.recordedOn,
+      coreId: input.coreId,
+    })
+    setResponseStatus(event, 201)
+    return logDetail(log, vehicle)
+  }
+  finally {
+    // Renamed to its id when stored; anything else leaves no file behind.
+    if (temporary) await rm(temporary, { force: true })
+  }
 })
 
-function tooLarge(): never {
-  throw createError({ statusCode: 413, message: `The file is larger than ${LOG_UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB. Trim the log to the session with the hard runs, or export fewer channels, and upload again.` })
+async function refuse(event: H3Event, statusCode: 413 | 503, message: string): Promise<never> {
+  // Not stored, but a declared body up to twice the limit is read and dropped first, so that a
+  // client that only reads the answer after sending everything (fetch) gets the 413 or 503 rather
+  // than a reset; a larger one is answered at once and the connection closed.
+  await dropRestOfBody(event, 2 * LOG_UPLOAD_LIMITS.maxBytes)
+  if (statusCode === 503) analysisBusy()
+  throw createError({ statusCode, message })
 }
