@@ -70,7 +70,7 @@ describe('the outbox', () => {
     await screenshot(page, 'owner-outbox-after-retry')
   })
 
-  it('the tuner e-mails a report link and is told it went', async () => {
+  it('the tuner e-mails a report link and is told it went', { timeout: 120_000 }, async () => {
     const db = new Database(join(inject('dataDir'), 'densitas.sqlite'), { readonly: true })
     const logId = (db.prepare('select l.id from logs l join vehicles v on v.id = l.vehicle_id join users u on u.id = v.owner_id where u.email = ? limit 1').get('driver@kestrel.test') as { id: number }).id
     db.close()
