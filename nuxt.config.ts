@@ -1,6 +1,15 @@
 // Densitas: Nuxt 4 with the flat layout (no app/ folder), so the project root is the source dir.
+import { API_POLICY, BASE_PAGE_POLICY } from './server/utils/security-headers'
+
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  // Production pages also get a content security policy (the dev server's inline scripts would not pass it).
+  $production: {
+    routeRules: {
+      '/**': { headers: { 'content-security-policy': BASE_PAGE_POLICY } },
+      '/api/**': { headers: { 'content-security-policy': API_POLICY } },
+    },
+  },
   devtools: { enabled: false },
   app: {
     head: {
@@ -20,18 +29,42 @@ export default defineNuxtConfig({
     uploadsDir: './data/uploads',
     migrationsDir: './db/migrations',
     seedDemo: true,
-    // Behind a reverse proxy, take the client address from X-Forwarded-For (for the sign-in limits).
+    // Behind a reverse proxy (NUXT_TRUST_PROXY=true), take the client address from X-Forwarded-For
+    // and the public host and scheme from X-Forwarded-Host/-Proto. Otherwise those headers are ignored.
     trustProxy: false,
+    // Failed sign-ins: free tries per address and client before the wait starts doubling (up to
+    // maxDelaySeconds); failures per client before it waits out the window. See server/utils/login-limit.ts.
     loginLimit: {
       perEmail: 5,
       perIp: 30,
       windowMinutes: 15,
+      maxDelaySeconds: 900,
+    },
+    // nuxt-auth-utils: the sealed cookie expires 14 days after it was issued (NUXT_SESSION_MAX_AGE,
+    // seconds); the server also refuses a sign-in older than that, however often it was refreshed.
+    session: {
+      maxAge: 14 * 24 * 60 * 60,
     },
     public: {
       appUrl: 'http://localhost:3000',
     },
   },
   srcDir: '.',
+  // Headers for every response, static files and errors included (pages get their own script
+  // hashes on top, server/plugins/security-headers.ts). The shared report sends no referrer, so a
+  // link clicked on it does not carry the report's address; private JSON is never cached.
+  routeRules: {
+    '/**': {
+      headers: {
+        'x-frame-options': 'DENY',
+        'x-content-type-options': 'nosniff',
+        'referrer-policy': 'same-origin',
+      },
+    },
+    '/shared/**': { headers: { 'referrer-policy': 'no-referrer' } },
+    '/api/**': { headers: { 'cache-control': 'no-store' } },
+    '/api/health': { headers: { 'cache-control': 'no-cache' } },
+  },
   compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },

@@ -44,6 +44,8 @@ export const canCompareLogs = (actor: Actor) => actor.role === 'owner' || actor.
 
 // Core catalogue and quotes are the fabricator's trade.
 export const canViewCores = (actor: Actor) => isStaff(actor)
+// Which core is fitted to a car names a catalogue entry, so only staff record it.
+export const canSetFittedCore = (actor: Actor) => isStaff(actor)
 export const canManageCores = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
 export const canManageQuotes = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
 export const canViewQuote = (actor: Actor, quote: { customerId: number }) => canManageQuotes(actor) || quote.customerId === actor.id

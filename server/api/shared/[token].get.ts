@@ -1,8 +1,21 @@
-export default defineEventHandler((event) => {
+import type { SharedReport } from '#shared/types/report'
+
+// Exactly what the shared page shows, nothing more: no ids of people, the workshop, the car or the
+// log, no file name or column mapping, no staff notes on the car. The tuner's notes on the log are
+// written for the customer and shown on the page.
+export default defineEventHandler((event): SharedReport => {
   const { token } = readParamsWith(event, tokenParams)
   const { log, vehicle, workshopName } = findSharedLog(token)
-  // Read-only and without the uploader's details or the column mapping.
-  const { mapping: _mapping, uploadedByName: _uploader, ...detail } = logDetail(log, vehicle)
   setResponseHeader(event, 'cache-control', 'private, no-store')
-  return { workshopName, vehicleDescription: vehicle.description, log: detail, analysis: storedAnalysis(log.id) }
+  return {
+    workshopName,
+    vehicleDescription: vehicle.description,
+    log: {
+      recordedOn: log.recordedOn,
+      createdAt: log.createdAt.toISOString(),
+      notes: log.notes,
+      vehicle: { ratedPowerKw: vehicle.ratedPowerKw, fuel: vehicle.fuel },
+    },
+    analysis: storedAnalysis(log.id),
+  }
 })
