@@ -48,6 +48,8 @@ async function waitUntilUp(url: string, child: ChildProcess, log: () => string) 
 export interface RunningServer {
   baseUrl: string
   dataDir: string
+  // The server process, for scripts that measure it (memory).
+  pid: number
   stop: () => Promise<void>
 }
 
@@ -95,6 +97,7 @@ export async function startServer(name: string, env: Record<string, string> = {}
   return {
     baseUrl,
     dataDir,
+    pid: child.pid!,
     stop: async () => {
       child.kill('SIGTERM')
       await new Promise(r => child.exitCode !== null ? r(null) : child.once('exit', r))
