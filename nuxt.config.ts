@@ -1,6 +1,15 @@
 // Densitas: Nuxt 4 with the flat layout (no app/ folder), so the project root is the source dir.
+import { API_POLICY, BASE_PAGE_POLICY } from './server/utils/security-headers'
+
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  // Production pages also get a content security policy (the dev server's inline scripts would not pass it).
+  $production: {
+    routeRules: {
+      '/**': { headers: { 'content-security-policy': BASE_PAGE_POLICY } },
+      '/api/**': { headers: { 'content-security-policy': API_POLICY } },
+    },
+  },
   devtools: { enabled: false },
   app: {
     head: {
@@ -20,7 +29,8 @@ export default defineNuxtConfig({
     uploadsDir: './data/uploads',
     migrationsDir: './db/migrations',
     seedDemo: true,
-    // Behind a reverse proxy, take the client address from X-Forwarded-For (for the sign-in limits).
+    // Behind a reverse proxy (NUXT_TRUST_PROXY=true), take the client address from X-Forwarded-For
+    // and the public host and scheme from X-Forwarded-Host/-Proto. Otherwise those headers are ignored.
     trustProxy: false,
     // Log import and analysis run in worker threads: `threads` at once (0: one less than the
     // cores, at least one), `queue` more waiting; past that an upload is answered 503 "busy".
@@ -30,10 +40,18 @@ export default defineNuxtConfig({
       // Set by modules/analysis-worker.ts in development; empty means beside the built server.
       workerPath: '',
     },
+    // Failed sign-ins: free tries per address and client before the wait starts doubling (up to
+    // maxDelaySeconds); failures per client before it waits out the window. See server/utils/login-limit.ts.
     loginLimit: {
       perEmail: 5,
       perIp: 30,
       windowMinutes: 15,
+      maxDelaySeconds: 900,
+    },
+    // nuxt-auth-utils: the sealed cookie expires 14 days after it was issued (NUXT_SESSION_MAX_AGE,
+    // seconds); the server also refuses a sign-in older than that, however often it was refreshed.
+    session: {
+      maxAge: 14 * 24 * 60 * 60,
     },
     // E-mail (see server/utils/mail-config.ts): SMTP_URL, MAIL_FROM and MAIL_RETRY_DELAYS win.
     mail: {
@@ -47,6 +65,21 @@ export default defineNuxtConfig({
     },
   },
   srcDir: '.',
+  // Headers for every response, static files and errors included (pages get their own script
+  // hashes on top, server/plugins/security-headers.ts). The shared report sends no referrer, so a
+  // link clicked on it does not carry the report's address; private JSON is never cached.
+  routeRules: {
+    '/**': {
+      headers: {
+        'x-frame-options': 'DENY',
+        'x-content-type-options': 'nosniff',
+        'referrer-policy': 'same-origin',
+      },
+    },
+    '/shared/**': { headers: { 'referrer-policy': 'no-referrer' } },
+    '/api/**': { headers: { 'cache-control': 'no-store' } },
+    '/api/health': { headers: { 'cache-control': 'no-cache' } },
+  },
   compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },

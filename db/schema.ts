@@ -70,6 +70,14 @@ export const passwordResets = sqliteTable('password_resets', {
   createdAt: createdAt(),
 })
 
+// Sessions signed out on one device: the sealed cookie cannot be recalled, so its id is refused
+// until the cookie would have expired anyway (then the row may go).
+export const revokedSessions = sqliteTable('revoked_sessions', {
+  sessionId: text('session_id').primaryKey(),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+}, t => [index('revoked_sessions_expires_idx').on(t.expiresAt)])
+
 export const cores = sqliteTable('cores', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   workshopId: integer('workshop_id').notNull().references(() => workshops.id, { onDelete: 'cascade' }),

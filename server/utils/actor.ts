@@ -1,7 +1,6 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import type { Actor } from '#shared/utils/abilities'
-import type { Role } from '#shared/utils/roles'
 
 export interface CurrentUser extends Actor {
   email: string
@@ -10,24 +9,19 @@ export interface CurrentUser extends Actor {
 }
 
 // The session only says who signed in; the role and workshop are re-read from the database on
-// every request, so a role changed by the owner takes effect on the next request.
+// every request, so a role changed by the owner takes effect on the next request. The session
+// itself is checked too (version, sign-out, age: server/utils/session.ts).
 export async function requireActor(event: H3Event): Promise<CurrentUser> {
   const session = await requireUserSession(event, { message: 'Sign in first: this needs a Densitas account.' })
   const row = useDb().select().from(tables.users).where(eq(tables.users.id, session.user.id)).get()
-  if (!row) {
+  const problem = sessionProblem(session, row)
+  if (problem || !row) {
     await clearUserSession(event)
-    throw createError({ statusCode: 401, message: 'Your account no longer exists. Ask the workshop owner for a new invitation.' })
+    throw createError({ statusCode: 401, message: problem ?? SESSION_ENDED })
   }
-  const user: CurrentUser = {
-    id: row.id,
-    role: row.role as Role,
-    workshopId: row.workshopId,
-    email: row.email,
-    name: row.name,
-    preferences: row.preferences,
-  }
+  const user = currentUserFromRow(row)
   if (session.user.role !== user.role || session.user.workshopId !== user.workshopId || session.user.name !== user.name) {
-    await replaceUserSession(event, { user: toSessionUser(user), loggedInAt: session.loggedInAt })
+    await refreshSession(event, session, toSessionUser(user))
   }
   event.context.actor = user
   return user

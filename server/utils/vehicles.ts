@@ -3,17 +3,31 @@ import { z } from 'zod'
 import { canSeeAllVehicles, type Actor } from '#shared/utils/abilities'
 import { FUELS } from '../../db/schema'
 
-export const vehicleFields = z.object({
-  description: z.string().trim().min(3, 'describe the car in a few words, e.g. "2.0 L four-cylinder turbo-diesel hatchback"').max(160),
-  registration: z.string().trim().max(20).default(''),
+// The fields of a car, without defaults: a patch derives from this with .partial(), so a key the
+// request leaves out stays absent (a default here would overwrite the stored value with '' or null).
+const vehicleBase = z.object({
+  description: z.string().trim().min(3, 'describe the car in a few words, e.g. "2.0 L four-cylinder turbo-diesel hatchback"').max(160, 'keep the description under 160 characters'),
+  registration: z.string().trim().max(20, 'a registration has at most 20 characters'),
   displacementL: z.number({ message: 'enter the engine size in litres' }).min(0.5, 'engine size is in litres: at least 0.5').max(10, 'engine size is in litres: at most 10'),
   cylinders: z.number().int('cylinders is a whole number').min(1).max(16),
   fuel: z.enum(FUELS, { message: 'fuel is diesel or petrol' }),
-  ratedPowerKw: z.number().positive('rated power must be above 0 kW').max(2000).nullable().default(null),
-  fittedCoreId: z.number().int().positive().nullable().default(null),
+  ratedPowerKw: z.number().positive('rated power must be above 0 kW').max(2000).nullable(),
+  fittedCoreId: z.number().int().positive().nullable(),
   ownerId: z.number().int().positive().optional(),
-  notes: z.string().max(2000).default(''),
+  notes: z.string().max(2000, 'keep the notes under 2000 characters'),
 })
+
+// A new car: what is not sent starts empty (the fitted core stays absent, so a customer's form,
+// which cannot send one, is told apart from someone choosing "none").
+export const vehicleFields = vehicleBase.extend({
+  registration: vehicleBase.shape.registration.default(''),
+  ratedPowerKw: vehicleBase.shape.ratedPowerKw.default(null),
+  fittedCoreId: vehicleBase.shape.fittedCoreId.optional(),
+  notes: vehicleBase.shape.notes.default(''),
+})
+
+// A change to a car: only the keys sent.
+export const vehiclePatch = vehicleBase.partial().strict()
 
 // The SQL condition that limits vehicles to what the actor may see: their workshop, and for a
 // driver only their own cars. Everything else does not exist for them (404).
@@ -35,9 +49,12 @@ export function assertDriverOfWorkshop(actor: Actor, ownerId: number) {
   if (owner.role !== 'driver') badRequest('ownerId: a car belongs to a customer (driver) account. Pick a customer, not a staff member.')
 }
 
-// A retired core is not offered for new fitting; a car that already has it may keep it.
+// The core catalogue is staff-only, so only staff say which core is fitted. A retired core is not
+// offered for new fitting; a car that already has it may keep it.
 export function assertCoreOfWorkshop(actor: Actor, coreId: number | null | undefined, currentCoreId?: number | null) {
-  if (coreId == null) return
+  if (coreId === undefined) return
+  if (!canSetFittedCore(actor)) forbidden('Only the workshop sets which intercooler core is fitted. Ask a tuner to record it.')
+  if (coreId === null) return
   const core = useDb().select({ id: tables.cores.id, retiredAt: tables.cores.retiredAt }).from(tables.cores).where(and(eq(tables.cores.id, coreId), eq(tables.cores.workshopId, actor.workshopId))).get()
   if (!core) badRequest('fittedCoreId: no core with that id in your catalogue. Pick one from the core catalogue or leave it empty.')
   if (core.retiredAt && coreId !== currentCoreId) badRequest('Fitted core: that core is retired from the catalogue. Pick a current core, or bring it back in the catalogue first.')

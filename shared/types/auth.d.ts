@@ -10,7 +10,12 @@ declare module '#auth-utils' {
     preferences: Record<string, string>
   }
   interface UserSession {
+    // When this device signed in (epoch ms): the maximum age counts from here.
     loggedInAt?: number
+    // This sign-in's own id, refused once it signs out (revoked_sessions).
+    sid?: string
+    // users.sessionVersion when the cookie was issued; an older one has ended.
+    version?: number
   }
 }
 

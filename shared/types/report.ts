@@ -101,11 +101,12 @@ export interface ShareLink {
   revokedAt: string | null
 }
 
+/** GET /api/shared/:token: only what the shared page shows (no ids, file details or staff notes). */
 export interface SharedReport {
   kind: 'log'
   workshopName: string
   vehicleDescription: string
-  log: Omit<LogDetail, 'mapping'>
+  log: Pick<LogDetail, 'notes' | 'createdAt' | 'recordedOn'> & { vehicle: Pick<LogVehicle, 'ratedPowerKw' | 'fuel'> }
   analysis: AnalysisResult
 }
 

@@ -51,6 +51,8 @@ export const canViewCoreEvidence = (actor: Actor) => isStaff(actor)
 
 // Core catalogue and quotes are the fabricator's trade.
 export const canViewCores = (actor: Actor) => isStaff(actor)
+// Which core is fitted to a car names a catalogue entry, so only staff record it.
+export const canSetFittedCore = (actor: Actor) => isStaff(actor)
 export const canManageCores = (actor: Actor) => actor.role === 'owner' || actor.role === 'fabricator'
 // Sizing reads a car's log and the catalogue; the tuner recommends, the fabricator quotes from it.
 export const canSizeCores = (actor: Actor) => isStaff(actor)

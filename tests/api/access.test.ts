@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest'
-import { Client, freshMember, readDatabase, signIn, useTestServer } from './client'
+import { Client, MEMBER_PASSWORD, freshMember, readDatabase, signIn, useTestServer } from './client'
 
 await useTestServer()
 
@@ -93,6 +93,13 @@ describe('PATCH /api/vehicles/:id', () => {
     const reply = await clients[who].patch<{ notes?: string }>(`/api/vehicles/${ids.driverCar}`, { notes: `checked by ${who}` })
     expect(reply.status).toBe(status)
     if (status === 200) expect(reply.body.notes).toBe(`checked by ${who}`)
+  })
+
+  it.each([
+    ['anonymous', 401], ['owner', 200], ['tuner', 200], ['fabricator', 403],
+    ['driver', 403], ['driver2', 404], ['foreignOwner', 404], ['foreignDriver', 404],
+  ] as const)('%s → %i setting the fitted core of the driver\'s car (staff only)', async (who, status) => {
+    expect((await clients[who].patch(`/api/vehicles/${ids.driverCar}`, { fittedCoreId: ids.stockCore })).status).toBe(status)
   })
 
   it('lets only staff move a car to another customer', async () => {
@@ -302,5 +309,24 @@ describe('my account and the workshop record', () => {
     expect(wrong.body.message).toMatch(/temperature/)
     expect((await clients.anonymous.patch('/api/me', { name: 'x' })).status).toBe(401)
     await clients.driver2.patch('/api/me', { preferences: { temperature: 'C', power: 'kW' } })
+  })
+})
+
+describe('signing out', () => {
+  it.each(['owner', 'tuner', 'fabricator', 'driver'] as const)('POST /api/auth/logout everywhere: a %s ends their own sign-ins only', async (role) => {
+    const member = await freshMember(clients.owner, role)
+    const second = await signIn(member.email, MEMBER_PASSWORD)
+    expect((await member.post('/api/auth/logout', { everywhere: true })).status).toBe(200)
+    expect((await second.get('/api/me')).status).toBe(401)
+    expect((await clients[role].get('/api/me')).status).toBe(200)
+  })
+
+  it('answers a sign-out without a sign-in with 200 (nothing to end), and a bad body with 400', async () => {
+    expect((await new Client().post('/api/auth/logout', { everywhere: true })).status).toBe(200)
+    const member = await freshMember(clients.owner, 'driver')
+    const bad = await member.post<{ message: string }>('/api/auth/logout', { everywhere: 'yes' })
+    expect(bad.status).toBe(400)
+    expect(bad.body.message).toMatch(/everywhere is true or false/)
+    expect((await member.get('/api/me')).status).toBe(200)
   })
 })

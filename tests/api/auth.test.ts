@@ -42,18 +42,45 @@ describe('sign-in', () => {
 })
 
 describe('sign-in limits', () => {
-  it('locks one address after 5 failures, from any client, even with the right password', async () => {
+  it('slows one address down after 5 failures from one client, doubling the wait; the right password works after it', async () => {
     const { email } = await freshMember(await signIn('owner@kestrel.test'), 'fabricator')
+    const guesser = new Client()
     for (let attempt = 0; attempt < 5; attempt++) {
-      const reply = await new Client().post('/api/auth/login', { email, password: `wrong-${attempt}` })
-      expect(reply.status).toBe(401)
+      expect((await guesser.post('/api/auth/login', { email, password: `wrong-${attempt}` })).status).toBe(401)
     }
-    const locked = await new Client().post<{ message: string }>('/api/auth/login', { email, password: MEMBER_PASSWORD })
-    expect(locked.status).toBe(429)
-    expect(locked.body.message).toMatch(/Wait 15 minutes/)
-    expect(Number(locked.headers.get('retry-after'))).toBeGreaterThan(0)
-    // Another account is not affected.
-    expect((await new Client().post('/api/auth/login', { email: 'tuner@kestrel.test', password: DEMO_PASSWORD })).status).toBe(200)
+    const slowed = await guesser.post<{ message: string }>('/api/auth/login', { email, password: MEMBER_PASSWORD })
+    expect(slowed.status).toBe(429)
+    expect(slowed.body.message).toMatch(/Wait 1 second before the next try/)
+    expect(slowed.headers.get('retry-after')).toBe('1')
+    await new Promise(resolve => setTimeout(resolve, 1100))
+    expect((await guesser.post('/api/auth/login', { email, password: 'wrong-again' })).status).toBe(401)
+    const longer = await guesser.post<{ message: string }>('/api/auth/login', { email, password: MEMBER_PASSWORD })
+    expect(longer.status).toBe(429)
+    expect(longer.headers.get('retry-after')).toBe('2')
+    await new Promise(resolve => setTimeout(resolve, 2100))
+    expect((await guesser.post('/api/auth/login', { email, password: MEMBER_PASSWORD })).status).toBe(200)
+  })
+
+  it('does not let one client\'s guesses lock the person out elsewhere', async () => {
+    const { email } = await freshMember(await signIn('owner@kestrel.test'), 'fabricator')
+    const guesser = new Client()
+    for (let attempt = 0; attempt < 6; attempt++) await guesser.post('/api/auth/login', { email, password: `wrong-${attempt}` })
+    expect((await guesser.post('/api/auth/login', { email, password: MEMBER_PASSWORD })).status).toBe(429)
+    expect((await new Client().post('/api/auth/login', { email, password: MEMBER_PASSWORD })).status).toBe(200)
+    // Another account is not affected either.
+    expect((await guesser.post('/api/auth/login', { email: 'tuner@kestrel.test', password: DEMO_PASSWORD })).status).toBe(200)
+  })
+
+  it('slows one address down after 10 failures spread over many clients, for a minute at most', async () => {
+    const { email } = await freshMember(await signIn('owner@kestrel.test'), 'fabricator')
+    for (let attempt = 0; attempt < 10; attempt++) {
+      expect((await new Client().post('/api/auth/login', { email, password: `wrong-${attempt}` })).status).toBe(401)
+    }
+    const slowed = await new Client().post<{ message: string }>('/api/auth/login', { email, password: MEMBER_PASSWORD })
+    expect(slowed.status).toBe(429)
+    expect(Number(slowed.headers.get('retry-after'))).toBeLessThanOrEqual(60)
+    await new Promise(resolve => setTimeout(resolve, Number(slowed.headers.get('retry-after')) * 1000 + 100))
+    expect((await new Client().post('/api/auth/login', { email, password: MEMBER_PASSWORD })).status).toBe(200)
   })
 
   it('locks one client address after 30 failures across many e-mail addresses', async () => {
@@ -143,11 +170,24 @@ describe('invitations', () => {
     expect(reuse.status).toBe(404)
   })
 
-  it('refuses to invite an address that already has an account', async () => {
+  it('refuses to invite one of the owner\'s own people again', async () => {
     const owner = await signIn('owner@kestrel.test')
-    const reply = await owner.post<{ message: string }>('/api/invites', { email: 'driver@harbourside.test', role: 'driver' })
+    const reply = await owner.post<{ message: string }>('/api/invites', { email: 'driver2@kestrel.test', role: 'driver' })
     expect(reply.status).toBe(409)
-    expect(reply.body.message).toMatch(/already has a Densitas account/)
+    expect(reply.body.message).toMatch(/already belongs to one of your people/)
+  })
+
+  it('answers an address of another workshop exactly like a new one, and tells only its holder', async () => {
+    const owner = await signIn('owner@kestrel.test')
+    const fresh = await owner.post<Record<string, unknown>>('/api/invites', { email: uniqueEmail('new'), role: 'driver' })
+    const taken = await owner.post<Record<string, unknown>>('/api/invites', { email: 'driver@harbourside.test', role: 'driver' })
+    expect(taken.status).toBe(fresh.status)
+    expect(Object.keys(taken.body).sort()).toEqual(Object.keys(fresh.body).sort())
+    const mail = readDatabase(db => db.prepare('select text from outbox where to_email = ? order by id desc limit 1').get('driver@harbourside.test') as { text: string })
+    expect(mail.text).toMatch(/already has a Densitas account with another workshop/)
+    // The link cannot make a second account for the address.
+    const token = /token=([\w-]+)/.exec(String(taken.body.link))![1]!
+    expect((await new Client().post('/api/invites/accept', { token, name: 'Someone', password: 'a long enough password' })).status).toBe(409)
   })
 
   it('writes nothing for an invalid invitation', async () => {

@@ -58,6 +58,13 @@ export class Client {
     return toReply<T>(await testFetch(path, { method: 'POST', headers, body: form }))
   }
 
+  // Any body and headers, as a browser or another program might send them (cookie and client address added).
+  async send<T = unknown>(method: string, path: string, init: { headers?: Record<string, string>, body?: BodyInit } = {}): Promise<Reply<T>> {
+    const headers: Record<string, string> = { 'x-forwarded-for': this.address, ...init.headers }
+    if (this.cookie) headers.cookie = this.cookie
+    return toReply<T>(await testFetch(path, { method, headers, body: init.body, redirect: 'manual' }))
+  }
+
   get<T = unknown>(path: string) {
     return this.request<T>('GET', path)
   }

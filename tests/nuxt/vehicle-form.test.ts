@@ -28,11 +28,12 @@ describe('VehicleForm', () => {
     expect(wrapper.emitted('submit')).toHaveLength(1)
   })
 
-  it('turns the draft into an API body without an owner for a driver', () => {
-    const body = vehicleDraftToBody({ ...emptyVehicleDraft(), ownerId: 7, ratedPowerKw: Number.NaN }, false)
+  it('turns the draft into an API body without an owner or a fitted core for a driver', () => {
+    const body = vehicleDraftToBody({ ...emptyVehicleDraft(), ownerId: 7, fittedCoreId: 3, ratedPowerKw: Number.NaN }, false)
     expect(body).not.toHaveProperty('ownerId')
+    expect(body).not.toHaveProperty('fittedCoreId')
     expect(body.ratedPowerKw).toBeNull()
-    expect(vehicleDraftToBody({ ...emptyVehicleDraft(), ownerId: 7 }, true)).toMatchObject({ ownerId: 7 })
+    expect(vehicleDraftToBody({ ...emptyVehicleDraft(), ownerId: 7, fittedCoreId: 3 }, true)).toMatchObject({ ownerId: 7, fittedCoreId: 3 })
   })
 })
 

@@ -1,3 +1,8 @@
+import type { SharedReport } from '#shared/types/report'
+
+// Exactly what the shared page shows, nothing more: no ids of people, the workshop, the car or the
+// log, no file name or column mapping, no staff notes on the car. The tuner's notes on the log are
+// written for the customer and shown on the page.
 export default defineEventHandler(async (event) => {
   const { token } = readParamsWith(event, tokenParams)
   setResponseHeader(event, 'cache-control', 'private, no-store')
@@ -7,7 +12,16 @@ export default defineEventHandler(async (event) => {
     return sharedComparisonView(comparison, vehicle, workshopName)
   }
   const { log, vehicle, workshopName } = findSharedLog(token)
-  // Read-only and without the uploader's details or the column mapping.
-  const { mapping: _mapping, uploadedByName: _uploader, ...detail } = logDetail(log, vehicle)
-  return { kind: 'log' as const, workshopName, vehicleDescription: vehicle.description, log: detail, analysis: await storedAnalysis(log.id) }
+  return {
+    kind: 'log' as const,
+    workshopName,
+    vehicleDescription: vehicle.description,
+    log: {
+      recordedOn: log.recordedOn,
+      createdAt: log.createdAt.toISOString(),
+      notes: log.notes,
+      vehicle: { ratedPowerKw: vehicle.ratedPowerKw, fuel: vehicle.fuel },
+    },
+    analysis: await storedAnalysis(log.id),
+  } satisfies SharedReport
 })

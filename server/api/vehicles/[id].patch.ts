@@ -1,13 +1,11 @@
 import { eq } from 'drizzle-orm'
 
-const body = vehicleFields.partial().strict()
-
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
   const { id } = readParamsWith(event, idParams)
   const vehicle = findVisibleVehicle(actor, id)
   if (!canEditVehicle(actor, vehicle)) forbidden('Your role can look at this car but not change it. Ask a tuner or the workshop owner.')
-  const changes = await readBodyWith(event, body)
+  const changes = await readBodyWith(event, vehiclePatch)
   if (changes.ownerId !== undefined && changes.ownerId !== vehicle.ownerId) {
     if (!canReassignVehicle(actor)) forbidden('Only the workshop can move a car to another customer.')
     assertDriverOfWorkshop(actor, changes.ownerId)

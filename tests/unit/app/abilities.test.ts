@@ -38,6 +38,11 @@ describe('abilities', () => {
     }
   })
 
+  it('lets only staff record which core is fitted to a car', () => {
+    for (const role of ['owner', 'tuner', 'fabricator'] as const) expect(abilities.canSetFittedCore(actor(role))).toBe(true)
+    expect(abilities.canSetFittedCore(actor('driver'))).toBe(false)
+  })
+
   it('keeps deleting a car with the workshop, not the customer', () => {
     expect(abilities.canDeleteVehicle(actor('driver'))).toBe(false)
     expect(abilities.canDeleteVehicle(actor('tuner'))).toBe(true)
