@@ -45,4 +45,3 @@ describe('the core form', () => {
     expect(form).toMatchObject({ price: '640.50', cost: '0.01', finDensityUnit: 'per-inch' })
   })
 })
-

@@ -1,6 +1,6 @@
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { describe, expect, it } from 'vitest'
-import { h } from 'vue'
+import { h, type Component } from 'vue'
 import UiDataTable from '~/components/ui/UiDataTable.vue'
 import { sortRows, type DataColumn } from '~/utils/dataTable'
 
@@ -16,11 +16,13 @@ const columns: DataColumn<Row, Key>[] = [
   { key: 'depth', label: 'Depth (mm)', sortKey: 'depth', firstDir: 'desc', align: 'right', value: row => (row.depthMm == null ? '—' : String(row.depthMm)) },
   { key: 'notes', label: 'Notes' },
 ]
+// The component is generic over its row; mounting it in a test sees it as a plain component.
+const Table = UiDataTable as Component
 const base = { columns, rows, rowKey: (row: Row) => row.id, testid: 'things', rowTestid: 'thing-row' }
 
 describe('UiDataTable', () => {
   it('renders one row per item with its cells, and the column name for phones in data-label', async () => {
-    const wrapper = await mountSuspended(UiDataTable, { props: base })
+    const wrapper = await mountSuspended(Table, { props: base })
     const trs = wrapper.findAll('[data-testid="thing-row"]')
     expect(trs).toHaveLength(3)
     expect(trs[0]!.findAll('td').map(td => td.text())).toEqual(['Bravo', '76', '—'])
@@ -29,7 +31,7 @@ describe('UiDataTable', () => {
   })
 
   it('emits the fixed sort key, flipping the direction on a second click and starting where the column says', async () => {
-    const wrapper = await mountSuspended(UiDataTable, { props: { ...base, sort: { key: 'name', dir: 'asc' } } })
+    const wrapper = await mountSuspended(Table, { props: { ...base, sort: { key: 'name', dir: 'asc' } } })
     await wrapper.find('[data-testid="sort-name"]').trigger('click')
     await wrapper.find('[data-testid="sort-depth"]').trigger('click')
     expect(wrapper.emitted('update:sort')).toEqual([[{ key: 'name', dir: 'desc' }], [{ key: 'depth', dir: 'desc' }]])
@@ -38,13 +40,13 @@ describe('UiDataTable', () => {
   })
 
   it('shows the empty state instead of a table', async () => {
-    const wrapper = await mountSuspended(UiDataTable, { props: { ...base, rows: [], emptyText: 'No cores here yet.' } })
+    const wrapper = await mountSuspended(Table, { props: { ...base, rows: [], emptyText: 'No cores here yet.' } })
     expect(wrapper.find('table').exists()).toBe(false)
     expect(wrapper.find('[data-testid="things-empty"]').text()).toBe('No cores here yet.')
   })
 
   it('pages: says which rows are shown and emits the next page, with the ends disabled', async () => {
-    const wrapper = await mountSuspended(UiDataTable, { props: { ...base, page: 1, pageSize: 3, total: 7, noun: 'cores' } })
+    const wrapper = await mountSuspended(Table, { props: { ...base, page: 1, pageSize: 3, total: 7, noun: 'cores' } })
     expect(wrapper.find('[data-testid="things-pager"]').text()).toMatch(/1–3 of 7 cores.*Page 1 of 3/)
     expect(wrapper.find('[data-testid="page-previous"]').attributes('disabled')).toBeDefined()
     await wrapper.find('[data-testid="page-next"]').trigger('click')
@@ -52,7 +54,7 @@ describe('UiDataTable', () => {
   })
 
   it('fills a cell from its slot', async () => {
-    const wrapper = await mountSuspended(UiDataTable, {
+    const wrapper = await mountSuspended(Table, {
       props: base,
       slots: { 'cell-notes': ({ row }: { row: Row }) => h('em', { 'data-testid': 'note' }, `note ${row.id}`) },
     })
