@@ -149,6 +149,8 @@ async function createSession(req: IncomingMessage, res: ServerResponse) {
     created: Math.floor(Date.now() / 1000),
     livemode: false,
   }
+  // A practice stand-in, not a store: keep the newest sessions only, so memory stays bounded.
+  if (sessions.size >= 500) sessions.delete(sessions.keys().next().value!)
   sessions.set(id, session)
   send(res, 200, 'application/json', JSON.stringify(session))
 }

@@ -271,6 +271,15 @@ describe('the PDF and the e-mail', () => {
 })
 
 describe('changing and moving a quote', () => {
+  it.each([
+    ['anonymous', 401], ['tuner', 403], ['driver', 404], ['driver2', 404], ['foreignOwner', 404], ['owner', 200],
+  ] as const)('%s → %i sending a draft', async (who, status) => {
+    const quote = await create()
+    const before = count('select count(*) n from outbox')
+    expect((await clients[who].post(`/api/quotes/${quote.id}/send`)).status).toBe(status)
+    expect(count('select count(*) n from outbox')).toBe(before + (status === 200 ? 1 : 0))
+  })
+
   it('writes only the keys sent, and recomputes the totals', async () => {
     const quote = await create()
     const reply = await clients.fabricator.patch<Detail>(`/api/quotes/${quote.id}`, { terms: 'Collect within a week.', taxRatePct: 10 })
