@@ -16,7 +16,7 @@ import {
 } from '../analysis'
 
 // Bumped when the engine's output changes meaning, so stored analyses can be told apart.
-export const ENGINE_VERSION = '2'
+export const ENGINE_VERSION = '3'
 
 export interface ConditionsInput {
   ambientTempC?: number | null

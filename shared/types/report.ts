@@ -123,6 +123,7 @@ export const MAPPABLE_CHANNELS: readonly { id: ChannelId, label: string, units: 
   { id: 'speed', label: 'Road speed', units: ['km/h', 'mph', 'm/s'] },
   { id: 'massAirFlow', label: 'Air mass flow', units: ['g/s', 'kg/h', 'lb/min', 'kg/s'] },
   { id: 'humidity', label: 'Relative humidity', units: ['%'] },
+  { id: 'engineLoad', label: 'Calculated engine load', units: ['%'] },
 ]
 
 /** How a unit code reads on screen. */
