@@ -48,7 +48,7 @@ export function findVisibleLog(actor: Actor, id: number) {
 // An engine error is the file's or the mapping's fault: 422 with the engine's own message.
 export function asHttpError(error: unknown): never {
   if (isLogImportError(error)) {
-    throw createError({ statusCode: 422, message: error.message, data: { code: error.code, column: error.column, line: error.line, channel: error.channel } })
+    throw createError({ statusCode: 422, message: error.message, data: { code: error.code, column: error.column, line: error.line, channel: error.channel, ...(error.drives ? { drives: error.drives } : {}) } })
   }
   throw error
 }
@@ -65,9 +65,10 @@ function analyseOptions(conditions: ConditionsInput, vehicle: VehicleRow, pullEd
   }
 }
 
-export async function importAndAnalyse(source: LogSource, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits) {
+export async function importAndAnalyse(source: LogSource, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits, driveIndex?: number) {
   try {
     const imported = await importLog(source, {
+      drive: driveIndex,
       mapping,
       altitudeM: conditions.altitudeM ?? undefined,
       baroKpa: conditions.baroKpa ?? undefined,
@@ -107,6 +108,7 @@ export async function loadImported(log: LogRow) {
   let imported: ImportedLog
   try {
     imported = await importLog({ path: logFilePath(log.id) }, {
+      drive: log.driveIndex ?? undefined,
       mapping: log.mapping as MappingInput,
       altitudeM: log.conditions.altitudeM ?? undefined,
       baroKpa: log.conditions.baroKpa ?? undefined,
@@ -139,13 +141,15 @@ export interface NewLog {
   conditions: ConditionsInput
   notes?: string
   recordedOn?: string | null
+  /** Which drive of a file holding several (see server/utils/drives.ts). */
+  driveIndex?: number
 }
 
 // Analyse first, then write the file and the rows together: the file goes to a temporary name,
 // and is renamed to its id inside the transaction, so a failure leaves neither row nor file.
 export async function storeNewLog(input: NewLog) {
   const { actor, vehicle, bytes, originalName, conditions } = input
-  const { imported, analysis } = await importAndAnalyse(bytes, input.mapping, conditions, vehicle)
+  const { imported, analysis } = await importAndAnalyse(bytes, input.mapping, conditions, vehicle, undefined, input.driveIndex)
   const temporary = join(uploadsDir(), 'logs', `.incoming-${randomBytes(8).toString('hex')}`)
   mkdirSync(dirname(temporary), { recursive: true })
   writeFileSync(temporary, bytes)
@@ -166,6 +170,7 @@ export async function storeNewLog(input: NewLog) {
         durationS: imported.durationS,
         notes: input.notes ?? '',
         recordedOn: input.recordedOn ?? null,
+        driveIndex: input.driveIndex ?? null,
       }).returning().get()
       tx.insert(tables.analyses).values({ workshopId: actor.workshopId, logId: row.id, engineVersion: ENGINE_VERSION, result: analysis as unknown as Record<string, unknown> }).run()
       recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'uploaded', entity: 'log', entityId: row.id, detail: { vehicleId: vehicle.id, originalName, sizeBytes: bytes.byteLength, rows: imported.rowCount } })

@@ -17,6 +17,8 @@ const fields = z.object({
   profileId: z.coerce.number().int().positive().optional(),
   notes: z.string().max(5000).optional(),
   recordedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'recordedOn is a date like 2026-07-14').optional(),
+  // Several drives in one file: "all" or drive numbers "0,2" (server/utils/drives.ts).
+  drives: z.string().max(200).optional(),
 })
 
 export default defineEventHandler(async (event) => {
@@ -74,7 +76,7 @@ export default defineEventHandler(async (event) => {
     mapping = profile.mapping as MappingInput
   }
 
-  const { log } = await storeNewLog({
+  const newLog = {
     actor,
     vehicle,
     bytes: file.data,
@@ -83,7 +85,14 @@ export default defineEventHandler(async (event) => {
     conditions: { ambientTempC: input.ambientTempC, altitudeM: input.altitudeM, baroKpa: input.baroKpa, humidityPct: input.humidityPct },
     notes: input.notes,
     recordedOn: input.recordedOn,
-  })
+  }
+  // Drive choice given: one log per chosen drive (server/utils/drives.ts), answered with their ids.
+  if (input.drives !== undefined) {
+    const ids = await storeChosenDrives(newLog, input.drives)
+    setResponseStatus(event, 201)
+    return { ids }
+  }
+  const { log } = await storeNewLog(newLog)
   setResponseStatus(event, 201)
   return logDetail(log, vehicle)
 })
