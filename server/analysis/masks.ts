@@ -60,6 +60,8 @@ export interface MaskOptions {
   explainLookbackS: number
   /** A pressure or air-flow reading held at its ceiling this long is clipped, s. */
   clipMinS: number
+  /** A step that steps back within this long masks the stretch in between, s. */
+  stepReturnS: number
 }
 
 export const DEFAULT_MASK_OPTIONS: Readonly<MaskOptions> = {
@@ -75,6 +77,7 @@ export const DEFAULT_MASK_OPTIONS: Readonly<MaskOptions> = {
   explainBoostPa: 15_000,
   explainLookbackS: 3,
   clipMinS: 1.5,
+  stepReturnS: 120,
 }
 
 /**
@@ -205,6 +208,7 @@ export function computeMasks(channels: LogChannels, ambientK: Float32Array | num
     // not explain. Sentinel readings are left to their own mask.
     let j = 0
     const dropout = MASK_BIT['sensor-dropout'] | MASK_BIT['temp-spike']
+    const steps: { atS: number, up: boolean, level: number, before: number }[] = []
     for (let i = 0; i < n; i++) {
       const ti = t[i]!
       while (j < i && ti - t[j + 1]! >= o.rateWindowS) j++
@@ -214,6 +218,17 @@ export function computeMasks(channels: LogChannels, ambientK: Float32Array | num
       if (!(Math.abs(change) / dt > o.maxChargeRateKPerS)) continue
       if (boostExplains(t, map, pre, j, i, change > 0, o)) continue
       markRange(t, flags, t[j]! - o.spikePadS, ti + o.spikePadS, MASK_BIT['temp-step'])
+      const last = steps[steps.length - 1]
+      if (!last || ti - last.atS > o.rateWindowS + o.spikePadS || last.up !== change > 0) steps.push({ atS: ti, up: change > 0, level: charge[i]!, before: charge[j]! })
+    }
+    // A step that comes back the other way: the level in between is the same fault, not air
+    // (a sensor connector, a stuck reading); mask it all when the return is within stepReturnS.
+    for (let k = 0; k + 1 < steps.length; k++) {
+      const a = steps[k]!
+      const b = steps[k + 1]!
+      if (a.up !== b.up && b.atS - a.atS <= o.stepReturnS && Math.abs(b.level - a.before) < Math.abs(a.level - a.before) / 2) {
+        markRange(t, flags, a.atS, b.atS, MASK_BIT['temp-step'])
+      }
     }
     if (ambientK !== undefined) {
       const bit = MASK_BIT['below-ambient']
