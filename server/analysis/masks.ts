@@ -219,7 +219,7 @@ export function computeMasks(channels: LogChannels, ambientK: Float32Array | num
       if (boostExplains(t, map, pre, j, i, change > 0, o)) continue
       markRange(t, flags, t[j]! - o.spikePadS, ti + o.spikePadS, MASK_BIT['temp-step'])
       const last = steps[steps.length - 1]
-      if (!last || ti - last.atS > o.rateWindowS + o.spikePadS || last.up !== change > 0) steps.push({ atS: ti, up: change > 0, level: charge[i]!, before: charge[j]! })
+      if (!last || ti - last.atS > o.rateWindowS + o.spikePadS || last.up !== (change > 0)) steps.push({ atS: ti, up: change > 0, level: charge[i]!, before: charge[j]! })
     }
     // A step that comes back the other way: the level in between is the same fault, not air
     // (a sensor connector, a stuck reading); mask it all when the return is within stepReturnS.

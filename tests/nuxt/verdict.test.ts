@@ -34,9 +34,9 @@ describe('ReportVerdict', () => {
     expect(box.classes()).toContain('bg-good-soft')
   })
 
-  it('tells the driver how to record runs when there are none', async () => {
+  it('tells the driver how to record pulls when there are none', async () => {
     const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1, 0), vehicle: null } })
-    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toMatch(/No full-throttle runs/)
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toMatch(/No pulls found/)
     expect(wrapper.find('[data-testid="verdict-consider"]').text()).toMatch(/closed course/)
   })
 })
