@@ -11,7 +11,7 @@ import type { Unit } from '../units'
 import { SAMPLE_BYTES, analyseSample, decodeSample, detectEncoding } from './detect'
 import type { ColumnInfo, DetectedFormat } from './detect'
 import { LogImportError } from './errors'
-import { isPhysicalUnit, isTimeFormat, parseMappingInput, resolveMapping } from './mapping'
+import { isPhysicalUnit, isTimeFormat, parseMappingInput, resolveMapping, unitGuesses } from './mapping'
 import type { LogMapping, MappingInput } from './mapping'
 import { driveInfo, drivesFromBreaks, sliceDrive } from './drives'
 import type { DriveInfo } from './drives'
@@ -86,6 +86,10 @@ export interface ColumnPreview {
   /** A gauge boost column without a baro column: enter baro or altitude (ISA is used otherwise). */
   needsBaro: boolean
   warnings: ImportWarning[]
+  /** Per numeric column, the unit guessed from its values for each channel it could be. */
+  unitGuesses: Record<string, Partial<Record<ValueChannelId, string>>>
+  /** Numeric columns that no channel took but whose values fit one: offered in the mapping form. */
+  unrecognised: string[]
 }
 
 export const DEFAULT_STALE_LIMIT_S = 5
@@ -220,7 +224,17 @@ export async function previewColumns(source: LogSource, options: { rows?: number
     needsAmbientTemp: !mapping.ambientTemp,
     needsBaro: Boolean(mapping.boost && !mapping.baro && !mapping.manifoldPressure),
     warnings: mappingWarnings(mapping),
+    ...offered(sample.columns, mapping),
   }
+}
+
+function offered(columns: readonly ColumnInfo[], mapping: LogMapping): Pick<ColumnPreview, 'unitGuesses' | 'unrecognised'> {
+  const guesses = unitGuesses(columns)
+  const used = new Set(Object.values(mapping).map(entry => entry?.column).filter(Boolean))
+  const unrecognised = columns
+    .filter(c => !used.has(c.header) && Object.keys(guesses[c.header] ?? {}).length > 0 && c.min !== c.max)
+    .map(c => c.header)
+  return { unitGuesses: guesses, unrecognised }
 }
 
 function columnsByHeader(columns: readonly ColumnInfo[]): Map<string, ColumnInfo> {

@@ -249,6 +249,28 @@ function valueCandidate(channel: ValueChannelId, column: ColumnInfo): Candidate 
   return { channel, column, unit, unitSource, confidence: Math.max(0, Math.min(1, score)) }
 }
 
+/**
+ * For each numeric column, the unit it most likely uses for each channel its values could be —
+ * judged from the values' range when the header names no unit (issue 10: unrecognised columns are
+ * offered in the mapping form with their units guessed).
+ */
+export function unitGuesses(columns: readonly ColumnInfo[]): Record<string, Partial<Record<ValueChannelId, MappingUnit>>> {
+  const out: Record<string, Partial<Record<ValueChannelId, MappingUnit>>> = {}
+  for (const column of columns) {
+    if (column.kind !== 'numeric' && column.kind !== 'numeric-with-unit') continue
+    const fits: Partial<Record<ValueChannelId, MappingUnit>> = {}
+    for (const channel of CHANNEL_IDS) {
+      if (channel === 'time') continue
+      const spec = CHANNELS[channel]
+      const headerUnit = column.unit && quantityOf(column.unit) === spec.quantity ? column.unit : undefined
+      const unit = headerUnit ?? guessUnit(channel, column)
+      if (inRange(channel, column, unit)) fits[channel] = unit
+    }
+    out[column.header] = fits
+  }
+  return out
+}
+
 /** Threshold below which a column is not mapped automatically (the user is asked instead). */
 export const MIN_AUTO_CONFIDENCE = 0.4
 

@@ -51,3 +51,14 @@ describe('units glued to the values', () => {
     expect(log.channels.pedalPct![0]).toBeCloseTo(74.5, 4)
   })
 })
+
+describe('columns no channel took', () => {
+  it('are offered with the unit their values suggest for each channel they could be', async () => {
+    const rows = Array.from({ length: 20 }, (_, i) => `${i},${40 + i},${300 + i},${(1.2 + i / 100).toFixed(2)},7`)
+    const preview = await previewColumns(`Time (s),Charge air temp (°C),Sensor X,Sensor Y,Constant\n${rows.join('\n')}\n`)
+    expect(preview.unrecognised).toEqual(['Sensor X', 'Sensor Y'])
+    // 300-ish read as kelvin for a temperature; 1.2-ish as bar for a pressure (engine judgement, values' range).
+    expect(preview.unitGuesses['Sensor X']).toMatchObject({ preCoolerTemp: 'K', ambientTemp: 'K' })
+    expect(preview.unitGuesses['Sensor Y']).toMatchObject({ manifoldPressure: 'bar', boost: 'bar' })
+  })
+})
