@@ -39,4 +39,17 @@ describe('ReportVerdict', () => {
     expect(wrapper.find('[data-testid="verdict-headline"]').text()).toMatch(/No pulls found/)
     expect(wrapper.find('[data-testid="verdict-consider"]').text()).toMatch(/closed course/)
   })
+
+  it('offers a tuner to keep the pulls left out when most were, and tells the drive in plain words', async () => {
+    const analysis = analysisWith(1, 1)
+    analysis.summary.foundPullCount = 5
+    analysis.summary.leftOutPulls = [1, 2, 3, 4].map(k => ({ startS: k * 60, endS: k * 60 + 8, reasons: ['temp-spike' as const] }))
+    const reader = await mountSuspended(Verdict, { props: { analysis, vehicle } })
+    expect(reader.find('[data-testid="verdict-headline"]').text()).toMatch(/^Most pulls were left out: 4 of the 5 pulls/)
+    expect(reader.find('[data-testid="keep-left-out"]').exists()).toBe(false)
+    const tuner = await mountSuspended(Verdict, { props: { analysis, vehicle, canEdit: true } })
+    await tuner.find('[data-testid="keep-left-out"]').trigger('click')
+    expect(tuner.emitted('keepLeftOut')).toEqual([[true]])
+    expect(tuner.find('[data-testid="verdict-drive"]').text()).toMatch(/heated up while the car was slow or stopped/)
+  })
 })
