@@ -19,7 +19,7 @@ describe('npm run analyse', () => {
     const out = run(good, '--json')
     expect(out.status).toBe(0)
     const result = JSON.parse(out.stdout)
-    expect(Object.keys(result)).toEqual(['summary', 'pulls', 'masks', 'warnings', 'mapping'])
+    expect(Object.keys(result)).toEqual(['summary', 'drive', 'driveDetail', 'pulls', 'masks', 'warnings', 'mapping'])
     expect(result.summary.pullCount).toBe(6)
   }, 30_000)
 
@@ -39,4 +39,22 @@ describe('npm run analyse', () => {
     expect(out.status).not.toBe(0)
     expect(out.stderr).toMatch(/charge-air .*temperature column/)
   }, 30_000)
+
+  it('lists the drives of a joined file and analyses the one chosen with --drive N', () => {
+    const first = generateDemoLog('stock-core-hot-day').csv.trimEnd().split('\n')
+    const second = generateDemoLog('front-mount-after').csv.trimEnd().split('\n')
+    const joined = join(dir, 'joined.csv')
+    writeFileSync(joined, [...first, ...second.slice(1)].join('\n') + '\n')
+    const refused = run(joined)
+    expect(refused.status).toBe(1)
+    expect(refused.stderr).toMatch(/holds 2 drives joined together/)
+    expect(refused.stderr).toMatch(/ {2}1\. starts at 0\.0 s .* 3900 rows: road speed up to/)
+    expect(refused.stderr).toMatch(/Choose one with --drive N/)
+    const chosen = run(joined, '--drive', '2')
+    expect(chosen.status).toBe(0)
+    expect(chosen.stdout).toMatch(/drive 2 of 2/)
+    expect(chosen.stdout).toMatch(/Full-load rule \(automatic\): Accelerator pedal at ≥ 90\.0 %/)
+    expect(run(joined, '--drive', '3').stderr).toMatch(/no drive 3/)
+  }, 60_000)
 })
+
