@@ -57,4 +57,3 @@ describe('npm run analyse', () => {
     expect(run(joined, '--drive', '3').stderr).toMatch(/no drive 3/)
   }, 60_000)
 })
-
