@@ -1,4 +1,7 @@
-import type { LogDetail } from '#shared/types/report'
+import type { DriveInfo, LogDetail } from '#shared/types/report'
+
+/** What the server answers: the log, or with a drive choice the ids of one log per drive. */
+export type UploadResult = LogDetail | { ids: number[] }
 
 export type UploadPhase = 'idle' | 'uploading' | 'analysing' | 'done' | 'failed'
 
@@ -8,8 +11,10 @@ export function useLogUpload() {
   const phase = ref<UploadPhase>('idle')
   const progress = ref(0)
   const error = ref('')
+  /** The file holds several drives: the server listed them for the person to choose from. */
+  const drives = ref<DriveInfo[] | null>(null)
 
-  function send(form: FormData): Promise<LogDetail | null> {
+  function send(form: FormData): Promise<UploadResult | null> {
     phase.value = 'uploading'
     progress.value = 0
     error.value = ''
@@ -26,10 +31,16 @@ export function useLogUpload() {
         phase.value = 'analysing'
       }
       xhr.onload = () => {
-        const body = xhr.response as (LogDetail & { message?: string }) | null
+        const body = xhr.response as (UploadResult & { message?: string, data?: { code?: string, drives?: DriveInfo[] } }) | null
         if (xhr.status === 201 || xhr.status === 200) {
           phase.value = 'done'
           resolve(body)
+          return
+        }
+        if (xhr.status === 422 && body?.data?.code === 'SEVERAL_DRIVES' && body.data.drives) {
+          drives.value = body.data.drives
+          phase.value = 'idle'
+          resolve(null)
           return
         }
         phase.value = 'failed'
@@ -45,11 +56,11 @@ export function useLogUpload() {
     })
   }
 
-  return { phase, progress, error, send }
+  return { phase, progress, error, drives, send }
 }
 
 export function uploadStatusMessage(status: number): string {
-  if (status === 413) return 'The file is too large for the server. Trim the log to the session with the hard runs and try again.'
+  if (status === 413) return 'The file is too large for the server. Trim the log to the stretch with the pulls and try again.'
   if (status === 415) return 'The server does not accept this kind of file. Export the log as CSV or text and try again.'
   if (status === 401) return 'Your session has ended. Sign in again and upload the log once more.'
   return `The server could not take the log (error ${status}). Try again in a moment.`

@@ -33,6 +33,10 @@ export const useUploadDraftStore = defineStore('uploadDraft', () => {
   const detected = ref<LogMapping>({})
   const headerSignature = ref('')
   const needsBaroHint = ref(false)
+  /** Per column, the unit its values suggest for each channel it could be (from the server). */
+  const unitGuesses = ref<Record<string, Partial<Record<string, string>>>>({})
+  /** Numeric columns no channel took, whose values fit one: offered to the person. */
+  const unrecognised = ref<string[]>([])
   const mapping = ref<DraftMapping>(emptyMapping())
   const conditions = ref<DraftConditions>(emptyConditions())
   const pressureSource = ref<'altitude' | 'baro'>('altitude')
@@ -41,8 +45,10 @@ export const useUploadDraftStore = defineStore('uploadDraft', () => {
   const saveAsProfile = ref(false)
   const newProfileName = ref('')
 
-  function loadDetected(answer: Pick<DetectResponse, 'columns' | 'mapping' | 'headerSignature' | 'needsBaro'>) {
+  function loadDetected(answer: Pick<DetectResponse, 'columns' | 'mapping' | 'headerSignature' | 'needsBaro'> & Partial<Pick<DetectResponse, 'unitGuesses' | 'unrecognised'>>) {
     columns.value = answer.columns
+    unitGuesses.value = answer.unitGuesses ?? {}
+    unrecognised.value = answer.unrecognised ?? []
     detected.value = answer.mapping
     headerSignature.value = answer.headerSignature
     needsBaroHint.value = answer.needsBaro
@@ -87,6 +93,8 @@ export const useUploadDraftStore = defineStore('uploadDraft', () => {
     detected.value = {}
     headerSignature.value = ''
     needsBaroHint.value = false
+    unitGuesses.value = {}
+    unrecognised.value = []
     mapping.value = emptyMapping()
     conditions.value = emptyConditions()
     pressureSource.value = 'altitude'
@@ -152,7 +160,7 @@ export const useUploadDraftStore = defineStore('uploadDraft', () => {
   })
 
   return {
-    columns, detected, headerSignature, needsBaroHint, mapping, conditions, pressureSource,
+    columns, detected, headerSignature, needsBaroHint, unitGuesses, unrecognised, mapping, conditions, pressureSource,
     profileId, profileName, saveAsProfile, newProfileName,
     needsAmbientTemp, hasPressureSource, problems, mappingInput,
     loadDetected, applyProfile, reset, isChanged,

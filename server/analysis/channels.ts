@@ -17,6 +17,7 @@ export const CHANNEL_IDS = [
   'speed',
   'massAirFlow',
   'humidity',
+  'engineLoad',
 ] as const
 
 export type ChannelId = typeof CHANNEL_IDS[number]
@@ -59,6 +60,8 @@ export interface LogChannels {
   speedMps?: Float32Array
   massAirFlowKgPerS?: Float32Array
   humidityPct?: Float32Array
+  /** Calculated engine load as the engine computer reports it (OBD), %. */
+  engineLoadPct?: Float32Array
 }
 
 export type ValueFieldName = Exclude<keyof LogChannels, 'timeS'>
@@ -78,6 +81,7 @@ export const CHANNELS: Readonly<Record<ValueChannelId, ChannelSpec>> = {
   speed: { id: 'speed', field: 'speedMps', quantity: 'speed', siUnit: 'm/s', label: 'Vehicle speed', plausibleMin: 0, plausibleMax: 150 },
   massAirFlow: { id: 'massAirFlow', field: 'massAirFlowKgPerS', quantity: 'massFlow', siUnit: 'kg/s', label: 'Mass air flow', plausibleMin: 0, plausibleMax: 5 },
   humidity: { id: 'humidity', field: 'humidityPct', quantity: 'percent', siUnit: '%', label: 'Relative humidity', plausibleMin: 0, plausibleMax: 100 },
+  engineLoad: { id: 'engineLoad', field: 'engineLoadPct', quantity: 'percent', siUnit: '%', label: 'Calculated engine load', plausibleMin: -5, plausibleMax: 105 },
 }
 
 export const VALUE_CHANNEL_IDS = CHANNEL_IDS.filter((id): id is ValueChannelId => id !== 'time')

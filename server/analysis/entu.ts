@@ -6,6 +6,7 @@
 // Q = ε·C_min·(T_h,in − T_c,in).
 import { CP_AIR, P0_PA, R_DRY_AIR } from './constants'
 import { dryAirDensity } from './density'
+import { impossible, requireBetween, requirePositive } from './guard'
 
 export type EntuForm = 'exact' | 'approx'
 
@@ -85,10 +86,12 @@ export function counterflowEffectiveness(ntu: number, cr: number): number {
 
 /**
  * NTU that gives effectiveness `eps` at capacity ratio `cr`: bracketed (doubling) then
- * bisected, since ε rises monotonically with NTU. Returns 0 for eps ≤ 0 and NaN when eps is
+ * bisected, since ε rises monotonically with NTU. Returns 0 for eps ≤ 0 and throws when eps is
  * not reached below NTU_MAX (for an air-to-air core that points at a measurement problem).
  */
 export function ntuForEffectiveness(eps: number, cr: number, form: EntuForm = 'exact'): number {
+  if (typeof eps !== 'number' || Number.isNaN(eps)) impossible(`The effectiveness must be a number; got ${String(eps)}.`)
+  requireBetween('The capacity ratio', cr, 0, 1)
   if (!(eps > 0)) return 0
   const f = (ntu: number) => crossflowEffectiveness(ntu, cr, form) - eps
   let lo = 0
@@ -97,7 +100,7 @@ export function ntuForEffectiveness(eps: number, cr: number, form: EntuForm = 'e
     lo = hi
     hi *= 2
     if (hi > NTU_MAX) {
-      if (f(NTU_MAX) < 0) return Number.NaN
+      if (f(NTU_MAX) < 0) impossible(`An effectiveness of ${eps.toFixed(3)} is not reached by a crossflow core at a capacity ratio of ${cr.toFixed(2)} (not even at ${NTU_MAX} transfer units): the measurement or the flow estimate is off.`)
       hi = NTU_MAX
       break
     }
@@ -150,7 +153,8 @@ export interface UaCalibration {
 /**
  * UA from a log: the trade (hot-side) effectiveness P_h = (T_pre − T_charge)/(T_pre − T_amb)
  * converts to the true ε = P_h·C_h/C_min (energy balance), then NTU from the crossflow relation,
- * then UA = NTU·C_min. NaN fields when ε is not reachable.
+ * then UA = NTU·C_min. Impossible input (ε outside 0…1, no flow, an ε the flows cannot reach) throws
+ * an IMPOSSIBLE_INPUT error saying what is wrong.
  */
 export function calibrateUa({ effectiveness, chargeMassFlowKgS, coolingMassFlowKgS, form = 'exact' }: {
   effectiveness: number
@@ -158,8 +162,14 @@ export function calibrateUa({ effectiveness, chargeMassFlowKgS, coolingMassFlowK
   coolingMassFlowKgS: number
   form?: EntuForm
 }): UaCalibration {
+  requireBetween('The measured effectiveness', effectiveness, 0, 1, true)
+  requirePositive('The charge-air mass flow', chargeMassFlowKgS, 'kg/s')
+  requirePositive('The cooling-air mass flow', coolingMassFlowKgS, 'kg/s')
   const rates = capacityRates({ hotMassFlowKgS: chargeMassFlowKgS, coldMassFlowKgS: coolingMassFlowKgS })
   const trueEps = effectiveness * rates.hotWK / rates.minWK
+  if (!(trueEps < 1)) {
+    impossible(`An effectiveness of ${effectiveness.toFixed(3)} cannot be reached with ${coolingMassFlowKgS} kg/s of cooling air for ${chargeMassFlowKgS} kg/s of charge air: the cooling air would have to leave hotter than the charge came in. Check the cooling-air flow estimate.`)
+  }
   const ntu = ntuForEffectiveness(trueEps, rates.cr, form)
   return {
     ua: ntu * rates.minWK,

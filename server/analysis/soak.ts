@@ -1,6 +1,8 @@
 // Heat soak across a session: how much hotter each pull runs than the one before, how fast the
 // core recovers between pulls, and when the soak would cost a given share of power.
+import { compressorOutletTempK } from './compressor'
 import { KELVIN_OFFSET } from './constants'
+import { LogImportError } from './import/errors'
 import { fitExponential, linearRegression } from './stats'
 import type { PullWindow } from './pulls'
 
@@ -110,4 +112,36 @@ export function projectPullsUntilLoss(trend: SoakTrend, coolestMeanChargeTempC: 
   const atPullNumber = Math.max(1, Math.ceil(k - 1e-9))
   if (atPullNumber > PROJECTION_HORIZON_PULLS) return { lossPct, atPullNumber: null, morePulls: null, assumption }
   return { lossPct, atPullNumber, morePulls: Math.max(0, atPullNumber - pullCount), assumption }
+}
+
+export interface NormaliseInput {
+  chargeK: number
+  ambientK: number
+  /** The pull's pressure ratio; NaN when boost is not usable (then only ambient is allowed for). */
+  pressureRatio: number
+  refAmbientK: number
+  refPressureRatio: number
+  efficiency: number
+}
+
+/**
+ * The charge temperature a pull would have had at a reference ambient and pressure ratio.
+ * Physics: the intercooler leaves a share (1 − ε) of the compressor's temperature rise in the
+ * charge (ε = hot-side effectiveness, reference sheet §5), and the compressor's rise over ambient
+ * is T1·(PR^((γ−1)/γ) − 1)/η (reference sheet §4). Holding (1 − ε) — the state of the core — and
+ * swapping the conditions gives
+ *   T_n = T_ref + (T_charge − T_amb) · ΔT2(T_ref, PR_ref) / ΔT2(T_amb, PR).
+ * Without a usable pressure ratio only the ambient is swapped: T_n = T_ref + (T_charge − T_amb).
+ * The compressor efficiency cancels in the ratio except through its (shared) value.
+ */
+export function normalisedChargeTempK(input: NormaliseInput): number {
+  const { chargeK, ambientK, pressureRatio, refAmbientK, refPressureRatio, efficiency } = input
+  for (const [name, value] of [['charge temperature', chargeK], ['ambient temperature', ambientK], ['reference ambient', refAmbientK]] as const) {
+    if (!(value > 0) || !Number.isFinite(value)) throw new LogImportError('IMPOSSIBLE_INPUT', `Cannot restate the charge temperature: the ${name} must be a positive absolute temperature in kelvin; got ${String(value)}.`)
+  }
+  const over = chargeK - ambientK
+  if (!(pressureRatio > 1) || !(refPressureRatio > 1)) return refAmbientK + over
+  const rise = compressorOutletTempK(ambientK, pressureRatio, efficiency) - ambientK
+  const refRise = compressorOutletTempK(refAmbientK, refPressureRatio, efficiency) - refAmbientK
+  return refAmbientK + over * refRise / rise
 }

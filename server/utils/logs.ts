@@ -8,6 +8,7 @@ import {
   isLogImportError,
   type AnalyseOptions,
   type AnalysisResult,
+  type DriveInfo,
   type ImportOptions,
   type ImportedLog,
   type LogMapping,
@@ -16,7 +17,7 @@ import {
 } from '../analysis'
 
 // Bumped when the engine's output changes meaning, so stored analyses can be told apart.
-export const ENGINE_VERSION = '2'
+export const ENGINE_VERSION = '3'
 
 export interface ConditionsInput {
   ambientTempC?: number | null
@@ -48,7 +49,7 @@ export function findVisibleLog(actor: Actor, id: number) {
 // An engine error is the file's or the mapping's fault: 422 with the engine's own message.
 export function asHttpError(error: unknown): never {
   if (isLogImportError(error)) {
-    throw createError({ statusCode: 422, message: error.message, data: { code: error.code, column: error.column, line: error.line, channel: error.channel } })
+    throw createError({ statusCode: 422, message: error.message, data: { code: error.code, column: error.column, line: error.line, channel: error.channel, ...(error.drives ? { drives: error.drives } : {}) } })
   }
   throw error
 }
@@ -65,8 +66,9 @@ function analyseOptions(conditions: ConditionsInput, vehicle: VehicleRow, pullEd
   }
 }
 
-function importOptions(mapping: MappingInput | undefined, conditions: ConditionsInput): ImportOptions {
+function importOptions(mapping: MappingInput | undefined, conditions: ConditionsInput, driveIndex?: number | null): ImportOptions {
   return {
+    drive: driveIndex ?? undefined,
     mapping,
     altitudeM: conditions.altitudeM ?? undefined,
     baroKpa: conditions.baroKpa ?? undefined,
@@ -75,9 +77,9 @@ function importOptions(mapping: MappingInput | undefined, conditions: Conditions
 }
 
 // Import and analysis of a file run in the worker pool (server/utils/analysis-pool.ts).
-export async function importAndAnalyse(path: string, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits) {
+export async function importAndAnalyse(path: string, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits, driveIndex?: number | null) {
   try {
-    return await analyseInWorker({ path, importOptions: importOptions(mapping, conditions), analyseOptions: analyseOptions(conditions, vehicle, pullEdits) })
+    return await analyseInWorker({ path, importOptions: importOptions(mapping, conditions, driveIndex), analyseOptions: analyseOptions(conditions, vehicle, pullEdits) })
   }
   catch (error) {
     asHttpError(error)
@@ -90,7 +92,7 @@ export async function reanalyseStoredLog(log: LogRow, conditions: ConditionsInpu
   try {
     const { analysis } = await analyseInWorker({
       path: logFilePath(log.id),
-      importOptions: importOptions(log.mapping as MappingInput, conditions),
+      importOptions: importOptions(log.mapping as MappingInput, conditions, log.driveIndex),
       analyseOptions: analyseOptions(conditions, vehicle, pullEdits),
     })
     return analysis
@@ -131,7 +133,7 @@ export async function loadImported(log: LogRow) {
     // Readers of the same log (a report opens several charts at once) share one import.
     let pending = importsInFlight.get(key)
     if (!pending) {
-      pending = importInWorker({ path, importOptions: importOptions(log.mapping as MappingInput, log.conditions) })
+      pending = importInWorker({ path, importOptions: importOptions(log.mapping as MappingInput, log.conditions, log.driveIndex) })
         .finally(() => importsInFlight.delete(key))
       importsInFlight.set(key, pending)
     }
@@ -170,6 +172,8 @@ export interface NewLog {
   notes?: string
   recordedOn?: string | null
   coreId?: number | null
+  /** Which drive of a file holding several (see server/utils/drives.ts). */
+  driveIndex?: number
 }
 
 export function incomingDir() {
@@ -195,7 +199,7 @@ export async function storeNewLog(input: NewLog) {
   const originalName = cleanFileName(input.originalName)
   let finalPath: string | undefined
   try {
-    const { analysis, mapping, rowCount, durationS } = await importAndAnalyse(temporary, input.mapping, conditions, vehicle)
+    const { analysis, mapping, rowCount, durationS } = await importAndAnalyse(temporary, input.mapping, conditions, vehicle, undefined, input.driveIndex)
     const log = useDb().transaction((tx) => {
       const row = tx.insert(tables.logs).values({
         workshopId: actor.workshopId,
@@ -212,6 +216,7 @@ export async function storeNewLog(input: NewLog) {
         notes: input.notes ?? '',
         recordedOn: input.recordedOn ?? null,
         coreId: input.coreId !== undefined ? input.coreId : vehicle.fittedCoreId,
+        driveIndex: input.driveIndex ?? null,
       }).returning().get()
       tx.insert(tables.analyses).values({ workshopId: actor.workshopId, logId: row.id, engineVersion: ENGINE_VERSION, result: analysis as unknown as Record<string, unknown> }).run()
       recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'uploaded', entity: 'log', entityId: row.id, detail: { vehicleId: vehicle.id, originalName, sizeBytes, rows: rowCount } })
@@ -266,5 +271,16 @@ export function logDetail(log: LogRow, vehicle: VehicleRow, channels?: string[])
     recordedOn: log.recordedOn,
     createdAt: log.createdAt,
     uploadedByName: uploadedBy?.name ?? null,
+  }
+}
+
+// The drives a file holds (several joined drives, or one), read in the worker pool like any import.
+export async function drivesInFile(path: string, mapping: MappingInput | undefined, conditions: ConditionsInput): Promise<DriveInfo[]> {
+  try {
+    return (await importInWorker({ path, importOptions: importOptions(mapping, conditions) })).drives
+  }
+  catch (error) {
+    if (isLogImportError(error) && error.code === 'SEVERAL_DRIVES' && error.drives) return error.drives as DriveInfo[]
+    asHttpError(error)
   }
 }

@@ -28,7 +28,7 @@ export interface AnalysedLog {
 export interface EngineFailure {
   code: LogImportErrorCode
   message: string
-  details: { column?: string, line?: number, channel?: string }
+  details: { column?: string, line?: number, channel?: string, drives?: LogImportError['drives'] }
 }
 
 export type JobReply
@@ -56,6 +56,6 @@ export default async function run(job: AnalysisJob) {
   }
   catch (error) {
     if (!isLogImportError(error)) throw error
-    return { ok: false, failure: { code: error.code, message: error.message, details: { column: error.column, line: error.line, channel: error.channel } } } satisfies JobReply
+    return { ok: false, failure: { code: error.code, message: error.message, details: { column: error.column, line: error.line, channel: error.channel, drives: error.drives } } } satisfies JobReply
   }
 }

@@ -13,16 +13,23 @@ export type {
   ColumnInfo,
   DetectedFormat,
   DownsampleResult,
+  DriveDetail,
+  DriveInfo,
+  DriveSummary,
+  FullLoadRule,
   LogMapping,
+  ManualPullRule,
   MappedChannel,
   MappingEntryInput,
   MappingInput,
   MaskReason,
   MaskSpan,
   PullEdits,
+  PullKind,
   PullOrigin,
   PullResult,
   Series,
+  SoakEvent,
   SoakProjection,
 } from '../../server/analysis'
 export type { ColumnKind } from '../../server/analysis/import/detect'
@@ -125,6 +132,7 @@ export const MAPPABLE_CHANNELS: readonly { id: ChannelId, label: string, units: 
   { id: 'speed', label: 'Road speed', units: ['km/h', 'mph', 'm/s'] },
   { id: 'massAirFlow', label: 'Air mass flow', units: ['g/s', 'kg/h', 'lb/min', 'kg/s'] },
   { id: 'humidity', label: 'Relative humidity', units: ['%'] },
+  { id: 'engineLoad', label: 'Calculated engine load', units: ['%'] },
 ]
 
 /** How a unit code reads on screen. */

@@ -149,7 +149,7 @@ describe('reading a log', () => {
   it('returns the analysis in the engine\'s shape', async () => {
     const reply = await clients.driver.get<Analysis & { warnings: unknown[], mapping: Record<string, unknown> }>(`/api/logs/${tunerLog}/analysis`)
     expect(reply.body.summary.pullCount).toBe(6)
-    expect(Object.keys(reply.body).sort()).toEqual(['mapping', 'masks', 'pulls', 'summary', 'warnings'])
+    expect(Object.keys(reply.body).sort()).toEqual(['drive', 'driveDetail', 'mapping', 'masks', 'pulls', 'summary', 'warnings'])
   })
 
   it('downsamples series to the asked number of points inside the asked window', async () => {

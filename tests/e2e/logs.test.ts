@@ -155,7 +155,7 @@ describe('the tuner corrects a mapping and saves it as a profile', () => {
       page.once('dialog', dialog => dialog.accept())
       await page.getByTestId('remove-pull-0').click()
       await page.waitForFunction(() => document.querySelectorAll('[data-testid="pull-row"]').length === 5, undefined, { timeout: 15_000 })
-      await expect(page.getByTestId('summary-pulls').textContent()).resolves.toMatch(/^\s*Full-throttle runs\s*5/)
+      await expect(page.getByTestId('summary-pulls').textContent()).resolves.toMatch(/^\s*Pulls\s*5/)
 
       // The same logger again: the profile is offered and fills the columns.
       await page.goto('/logs/new')

@@ -140,3 +140,20 @@ describe('MappingForm', () => {
     expect(wrapper.find('[data-testid="mapping-row-chargeTemp"]').text()).toContain('Choose the column with the charge air temperature (after the intercooler, often called intake air temperature).')
   })
 })
+
+describe('MappingForm with columns the engine did not recognise', () => {
+  it('offers them with the channels their values fit and the unit guessed from the values', async () => {
+    const draft = useUploadDraftStore()
+    draft.reset()
+    draft.loadDetected({ ...answer, unrecognised: ['Temp B (°F)', 'Col 7'], unitGuesses: { 'Temp B (°F)': { ambientTemp: 'degF', chargeTemp: 'degF' }, 'Col 7': { preCoolerTemp: 'K' } } })
+    const wrapper = await mountSuspended(MappingForm)
+    const offer = wrapper.find('[data-testid="mapping-unrecognised"]')
+    expect(offer.exists()).toBe(true)
+    // chargeTemp is taken already, so only the outside temperature is offered for "Temp B".
+    const select = wrapper.find('[data-testid="unrecognised-Temp B (°F)"] select')
+    expect(select.findAll('option').map(o => o.text())).toEqual(['Not used', 'Outside air temperature (in °F)'])
+    await select.setValue('ambientTemp')
+    expect(draft.mapping.ambientTemp).toEqual({ column: 'Temp B (°F)', unit: 'degF' })
+    expect(wrapper.find('[data-testid="unrecognised-Temp B (°F)"]').exists()).toBe(false)
+  })
+})

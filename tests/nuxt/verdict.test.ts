@@ -34,9 +34,9 @@ describe('ReportVerdict', () => {
     expect(box.classes()).toContain('bg-good-soft')
   })
 
-  it('tells the driver how to record runs when there are none', async () => {
+  it('tells the driver how to record pulls when there are none', async () => {
     const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1, 0), vehicle: null } })
-    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toMatch(/No full-throttle runs/)
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toMatch(/No pulls found/)
     expect(wrapper.find('[data-testid="verdict-consider"]').text()).toMatch(/closed course/)
   })
 
@@ -94,5 +94,18 @@ describe('ReportVerdict', () => {
     const consider = wrapper.find('[data-testid="verdict-consider"]').text()
     expect(consider).toContain('larger intercooler core')
     expect(consider).toContain('risk of knock')
+  })
+
+  it('offers a tuner to keep the pulls left out when most were, and tells the drive in plain words', async () => {
+    const analysis = analysisWith(1, 1)
+    analysis.summary.foundPullCount = 5
+    analysis.summary.leftOutPulls = [1, 2, 3, 4].map(k => ({ startS: k * 60, endS: k * 60 + 8, reasons: ['temp-spike' as const] }))
+    const reader = await mountSuspended(Verdict, { props: { analysis, vehicle } })
+    expect(reader.find('[data-testid="verdict-headline"]').text()).toMatch(/^Most pulls were left out: 4 of the 5 pulls/)
+    expect(reader.find('[data-testid="keep-left-out"]').exists()).toBe(false)
+    const tuner = await mountSuspended(Verdict, { props: { analysis, vehicle, canEdit: true } })
+    await tuner.find('[data-testid="keep-left-out"]').trigger('click')
+    expect(tuner.emitted('keepLeftOut')).toEqual([[true]])
+    expect(tuner.find('[data-testid="verdict-drive"]').text()).toMatch(/heated up while the car was slow or stopped/)
   })
 })

@@ -19,6 +19,8 @@ export const CHART_PALETTE = {
   pullShade: withAlpha(colors.accent.DEFAULT, 0.12),
   maskShade: withAlpha(colors.danger.DEFAULT, 0.12),
   mask: colors.danger.DEFAULT,
+  soakShade: withAlpha(colors.warn.DEFAULT, 0.18),
+  soak: colors.warn.DEFAULT,
   good: colors.good.DEFAULT,
   ink: colors.ink.DEFAULT,
   inkSoft: colors.ink.soft,

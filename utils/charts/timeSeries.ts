@@ -3,7 +3,7 @@
 // Pure: the same input gives the same option, so it is unit-tested without a browser.
 import type { EChartsOption, SeriesOption } from 'echarts'
 import type { PressureUnit, TemperatureUnit } from '~/stores/units'
-import type { ChannelId, DownsampleResult, MaskSpan, PullResult, Series } from '#shared/types/report'
+import type { ChannelId, DownsampleResult, MaskSpan, PullResult, Series, SoakEvent } from '#shared/types/report'
 import { seriesValueIn, temperatureSymbol } from '../displayUnits'
 import { CHART_FONT, CHART_PALETTE } from './palette'
 
@@ -11,6 +11,8 @@ export interface TimeSeriesInput {
   data: DownsampleResult
   pulls: readonly Pick<PullResult, 'index' | 'startS' | 'endS'>[]
   masks: readonly MaskSpan[]
+  /** Soak events of the drive summary: the charge air heating up while slow or stopped. */
+  soakEvents?: readonly SoakEvent[]
   units: { temperature: TemperatureUnit, pressure: PressureUnit }
   /** Visible window, s (dataZoom); the whole log when absent. */
   window?: { fromS: number, toS: number } | null
@@ -30,6 +32,9 @@ const MASK_WORDS: Record<MaskSpan['reason'], string> = {
   'restart-settle': 'Settling after restart',
   'temp-spike': 'Sensor jump',
   'below-ambient': 'Below outside air',
+  'sensor-dropout': 'Sensor gave no reading',
+  'temp-step': 'Sensor step',
+  'clipped': 'Sensor at its limit',
 }
 
 export const maskLabel = (reason: MaskSpan['reason']) => MASK_WORDS[reason]
@@ -105,6 +110,23 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
         itemStyle: { color: CHART_PALETTE.maskShade, borderColor: CHART_PALETTE.mask, borderWidth: 0.5, borderType: 'dashed' },
         label: { show: false },
         data: masks.map(m => [{ name: maskLabel(m.reason), xAxis: m.startS }, { xAxis: m.endS }]),
+      },
+    } as SeriesOption)
+  }
+
+  const soak = input.soakEvents ?? []
+  if (soak.length) {
+    series.push({
+      type: 'line',
+      name: 'Soak events',
+      data: [],
+      yAxisIndex: 0,
+      itemStyle: { color: CHART_PALETTE.soak },
+      markArea: {
+        silent: true,
+        itemStyle: { color: CHART_PALETTE.soakShade },
+        label: { show: true, position: 'insideBottom', color: CHART_PALETTE.inkSoft, fontSize: 11 },
+        data: soak.map(e => [{ name: `+${round(e.riseK, 1)} K`, xAxis: e.startS }, { xAxis: e.endS }]),
       },
     } as SeriesOption)
   }

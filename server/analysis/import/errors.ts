@@ -19,6 +19,9 @@ export const LOG_IMPORT_ERROR_CODES = [
   'AMBIENT_REQUIRED',
   'BAD_OPTION',
   'BAD_PULL_EDIT',
+  'SEVERAL_DRIVES',
+  'BAD_DRIVE',
+  'IMPOSSIBLE_INPUT',
 ] as const
 
 export type LogImportErrorCode = typeof LOG_IMPORT_ERROR_CODES[number]
@@ -30,6 +33,8 @@ export interface LogImportErrorDetails {
   line?: number
   /** Canonical channel concerned (e.g. `chargeTemp`). */
   channel?: string
+  /** SEVERAL_DRIVES: the drives found in the file, for the user to choose from. */
+  drives?: { index: number, startS: number, durationS: number, rows: number, contains?: string }[]
 }
 
 export class LogImportError extends Error {
@@ -38,6 +43,7 @@ export class LogImportError extends Error {
   readonly column?: string
   readonly line?: number
   readonly channel?: string
+  readonly drives?: LogImportErrorDetails['drives']
 
   constructor(code: LogImportErrorCode, message: string, details: LogImportErrorDetails = {}) {
     super(message)
@@ -45,11 +51,12 @@ export class LogImportError extends Error {
     this.column = details.column
     this.line = details.line
     this.channel = details.channel
+    this.drives = details.drives
   }
 
   /** Plain object for JSON responses (`{ message }` plus machine-readable context). */
   toJSON(): { code: LogImportErrorCode, message: string } & LogImportErrorDetails {
-    return { code: this.code, message: this.message, column: this.column, line: this.line, channel: this.channel }
+    return { code: this.code, message: this.message, column: this.column, line: this.line, channel: this.channel, ...(this.drives ? { drives: this.drives } : {}) }
   }
 }
 

@@ -12,8 +12,10 @@ import type { Unit } from '../units'
 import { SAMPLE_BYTES, analyseSample, decodeSample, detectEncoding } from './detect'
 import type { ColumnInfo, DetectedFormat } from './detect'
 import { LogImportError } from './errors'
-import { isPhysicalUnit, isTimeFormat, parseMappingInput, resolveMapping } from './mapping'
+import { isPhysicalUnit, isTimeFormat, parseMappingInput, resolveMapping, unitGuesses } from './mapping'
 import type { LogMapping, MappingInput } from './mapping'
+import { driveInfo, drivesFromBreaks, sliceDrive } from './drives'
+import type { DriveInfo } from './drives'
 import { parseSource } from './parse'
 import type { ParsePlan, ParseResult, ParseSource, SlotPlan } from './parse'
 
@@ -30,6 +32,11 @@ export interface ImportOptions {
   staleLimitS?: number
   /** Refuse logs with more rows than this (default 2 000 000). */
   maxRows?: number
+  /**
+   * Which drive to import (0-based) when the file holds several joined drives. Without it such a
+   * file is refused with SEVERAL_DRIVES, listing the drives, so nothing is analysed by accident.
+   */
+  drive?: number
 }
 
 export interface ImportWarning {
@@ -62,6 +69,10 @@ export interface ImportedLog {
   startClockS?: number
   /** Stable fingerprint of the header names (to offer a saved log profile for the same logger). */
   headerSignature: string
+  /** Every drive found in the file (one for an ordinary log). */
+  drives: DriveInfo[]
+  /** The drive imported when the file holds several; null when it holds one. */
+  driveIndex: number | null
 }
 
 export interface ColumnPreview {
@@ -76,6 +87,10 @@ export interface ColumnPreview {
   /** A gauge boost column without a baro column: enter baro or altitude (ISA is used otherwise). */
   needsBaro: boolean
   warnings: ImportWarning[]
+  /** Per numeric column, the unit guessed from its values for each channel it could be. */
+  unitGuesses: Record<string, Partial<Record<ValueChannelId, string>>>
+  /** Numeric columns that no channel took but whose values fit one: offered in the mapping form. */
+  unrecognised: string[]
 }
 
 export const DEFAULT_STALE_LIMIT_S = 5
@@ -210,7 +225,17 @@ export async function previewColumns(source: LogSource, options: { rows?: number
     needsAmbientTemp: !mapping.ambientTemp,
     needsBaro: Boolean(mapping.boost && !mapping.baro && !mapping.manifoldPressure),
     warnings: mappingWarnings(mapping),
+    ...offered(sample.columns, mapping),
   }
+}
+
+function offered(columns: readonly ColumnInfo[], mapping: LogMapping): Pick<ColumnPreview, 'unitGuesses' | 'unrecognised'> {
+  const guesses = unitGuesses(columns)
+  const used = new Set(Object.values(mapping).map(entry => entry?.column).filter(Boolean))
+  const unrecognised = columns
+    .filter(c => !used.has(c.header) && Object.keys(guesses[c.header] ?? {}).length > 0 && c.min !== c.max)
+    .map(c => c.header)
+  return { unitGuesses: guesses, unrecognised }
 }
 
 function columnsByHeader(columns: readonly ColumnInfo[]): Map<string, ColumnInfo> {
@@ -271,9 +296,45 @@ export async function importLog(source: LogSource, options: ImportOptions = {}):
   }
   const parsed = await parseSource(opened.parse, plan, text)
   const warnings = mappingWarnings(mapping)
-  const channels = assembleChannels(parsed, plan, mapping, warnings, options)
+  const joined = assembleChannels(parsed, plan, mapping, warnings, options)
+  const { drives, droppedRows } = drivesFromBreaks(parsed.timeS, parsed.rowCount, parsed.driveBreaks, joined)
+  if (droppedRows > 0) {
+    warnings.push({ code: 'DRIVE_FRAGMENTS', column: plan.timeHeader, message: `${droppedRows} row(s) where the time jumped were too few to be a drive of their own and were left out.` })
+  }
+  if (drives.length === 0) {
+    throw new LogImportError('NO_USABLE_ROWS', 'The file has no stretch of rows with a steadily rising time. Check the time column, then upload again.')
+  }
+  const infos = drives.map(driveInfo)
+  let channels = joined
+  let driveIndex: number | null = null
+  let rowCount = parsed.rowCount
+  if (options.drive !== undefined) {
+    if (!Number.isInteger(options.drive) || options.drive < 0 || options.drive >= drives.length) {
+      throw new LogImportError('BAD_DRIVE', drives.length === 1
+        ? `The file holds one drive, so there is no drive ${String(options.drive)} to choose. Leave the drive choice out.`
+        : `The file holds ${drives.length} drives, numbered 0 to ${drives.length - 1}; there is no drive ${String(options.drive)}.`, { drives: infos })
+    }
+    if (drives.length > 1) {
+      const drive = drives[options.drive]!
+      channels = sliceDrive(joined, drive.fromRow, drive.toRow)
+      driveIndex = drive.index
+      rowCount = drive.rows
+    }
+  }
+  else if (drives.length > 1) {
+    throw new LogImportError('SEVERAL_DRIVES',
+      `This file holds ${drives.length} drives joined together (the time runs backwards or jumps at line${drives.length > 2 ? 's' : ''} ${drives.slice(1).map(d => d.line).join(', ')}). Choose which drive to analyse, or all of them, each as its own log.`,
+      { drives: infos, column: plan.timeHeader })
+  }
+  else if (drives[0]!.rows !== parsed.rowCount) {
+    // One drive plus dropped fragments: keep only the drive.
+    channels = sliceDrive(joined, drives[0]!.fromRow, drives[0]!.toRow)
+    rowCount = drives[0]!.rows
+  }
 
   return {
+    drives: infos,
+    driveIndex,
     channels,
     mapping,
     warnings,
@@ -286,10 +347,23 @@ export async function importLog(source: LogSource, options: ImportOptions = {}):
       kind: c.kind,
       channel: (Object.keys(mapping) as ChannelId[]).find(id => mapping[id]?.column === c.header),
     })),
-    rowCount: parsed.rowCount,
-    durationS: parsed.rowCount > 0 ? parsed.timeS[parsed.rowCount - 1]! : 0,
-    startClockS: Number.isFinite(parsed.firstClockS) ? parsed.firstClockS : undefined,
+    rowCount,
+    durationS: rowCount > 0 ? channels.timeS[rowCount - 1]! : 0,
+    startClockS: driveIndex !== null
+      ? (Number.isFinite(parsed.firstClockS) ? infos[driveIndex]!.startS : undefined)
+      : (Number.isFinite(parsed.firstClockS) ? parsed.firstClockS : undefined),
     headerSignature: headerSignature(sample.columns),
+  }
+}
+
+/** The drives a file holds (one for an ordinary log), for the upload page and the command line. */
+export async function listDrives(source: LogSource, options: Omit<ImportOptions, 'drive'> = {}): Promise<DriveInfo[]> {
+  try {
+    return (await importLog(source, options)).drives
+  }
+  catch (error) {
+    if (error instanceof LogImportError && error.code === 'SEVERAL_DRIVES' && error.drives) return error.drives as DriveInfo[]
+    throw error
   }
 }
 

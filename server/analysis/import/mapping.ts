@@ -82,13 +82,13 @@ const NAME_RULES: Record<ChannelId, NameRule[]> = {
   ],
   chargeTemp: [
     { pattern: /charge air temp|charge temp|ladeluft ?temp|post ?(ic|cooler|intercooler)|after (the )?(cooler|ic|intercooler)|manifold air temp|\bmat\b|\bcat\b.*air/, score: 0.95 },
-    { pattern: /intake air temp|intake temp|\biat\b|ansaugluft ?temp|air temp.*intake/, score: 0.7 },
+    { pattern: /intake air temp|intake temp|\biat ?\d?\b|ansaugluft ?temp|air temp.*intake/, score: 0.7 },
   ],
   preCoolerTemp: [
     { pattern: /pre ?(ic|cooler|intercooler)|before (the )?(cooler|ic|intercooler)|compressor out|turbo out|vor (dem )?(lk|ladeluftk)/, score: 0.92 },
   ],
   ambientTemp: [
-    { pattern: /ambient (air )?temp|outside (air )?temp|outdoor temp|aussen ?temp|außen ?temp|\boat\b|umgebungstemp/, score: 0.92 },
+    { pattern: /ambient (air )?temp|outside (air )?temp|outdoor temp|aussen ?temp|außen ?temp|\boat\b|umgebungstemp|^ambient( air)?$/, score: 0.92 },
   ],
   speed: [
     { pattern: /^(speed|vehicle speed|road speed|ground speed|geschwindigkeit|vss)$/, score: 0.92 },
@@ -101,6 +101,9 @@ const NAME_RULES: Record<ChannelId, NameRule[]> = {
   humidity: [
     { pattern: /humid|\brh\b|feuchte/, score: 0.9 },
   ],
+  engineLoad: [
+    { pattern: /^(calculated )?(engine )?load( value)?$|calculated (engine )?load|engine load|calc load|motorlast/, score: 0.88 },
+  ],
 }
 
 // Words that rule a header out for a channel even when a rule above matched.
@@ -109,14 +112,38 @@ const EXCLUDE: Partial<Record<ChannelId, RegExp>> = {
   speed: /engine|fan|wheel slip|turbo|shaft|idle/,
   chargeTemp: /pre ?(ic|cooler|intercooler)|before|coolant|oil|fuel|exhaust|ambient|outside/,
   ambientTemp: /press/,
+  engineLoad: /absolute|abs load|torque/,
   boost: /target|desired|request|soll|abs(olute)?\b|duty|solenoid|limit/,
   manifoldPressure: /target|desired|request|soll|baro/,
   baro: /manifold/,
   rpm: /turbo|fan|shaft|idle target/,
 }
 
+// Short forms loggers write, spelled out so one set of rules reads them all (our own list).
+const ABBREVIATIONS: Record<string, string> = {
+  amb: 'ambient', tmp: 'temp', temperature: 'temp', pos: 'position', posn: 'position', press: 'pressure', prs: 'pressure',
+  spd: 'speed', thr: 'throttle', thrtl: 'throttle', accel: 'accelerator', acc: 'accelerator', veh: 'vehicle', eng: 'engine',
+  ambiant: 'ambient', intk: 'intake', manf: 'manifold', mnfld: 'manifold',
+}
+// A unit written as the last word of a name (`ambient_c`, `map_kpa`, `boost psi`): not part of the name.
+const TRAILING_UNIT = / (c|f|k|degc|degf|deg c|deg f|kpa|hpa|mbar|bar|psi|psig|psia|pct|percent|kmh|kph|mph|gs|g s|kgh)$/
+
+/**
+ * A header name as the rules read it: camelCase split, any case, any separator, short forms
+ * spelled out and a trailing unit word dropped (`AmbientTemp`, `AMBIENT_AIR_TEMP`, `Amb. temp`,
+ * `ambient_c` all read as "ambient … temp…" or "ambient").
+ */
 export function normaliseName(name: string): string {
-  return name.toLowerCase().replace(/[_\-.:/]+/g, ' ').replace(/\s+/g, ' ').trim()
+  const spaced = name
+    .replace(/([a-z])([A-Z])/g, '$1 $2')
+    .replace(/([A-Z]+)([A-Z][a-z])/g, '$1 $2')
+    .toLowerCase()
+    .replace(/[_\-.:/,;]+/g, ' ')
+    .replace(/\s+/g, ' ')
+    .trim()
+  const words = spaced.split(' ').map(word => ABBREVIATIONS[word] ?? word).join(' ')
+  const trimmed = words.replace(TRAILING_UNIT, '').trim()
+  return trimmed.length > 0 ? trimmed : words
 }
 
 function nameScore(channel: ChannelId, column: ColumnInfo): number {
@@ -221,6 +248,28 @@ function valueCandidate(channel: ValueChannelId, column: ColumnInfo): Candidate 
   }
   if (!inRange(channel, column, unit)) score *= 0.5
   return { channel, column, unit, unitSource, confidence: Math.max(0, Math.min(1, score)) }
+}
+
+/**
+ * For each numeric column, the unit it most likely uses for each channel its values could be —
+ * judged from the values' range when the header names no unit (issue 10: unrecognised columns are
+ * offered in the mapping form with their units guessed).
+ */
+export function unitGuesses(columns: readonly ColumnInfo[]): Record<string, Partial<Record<ValueChannelId, MappingUnit>>> {
+  const out: Record<string, Partial<Record<ValueChannelId, MappingUnit>>> = {}
+  for (const column of columns) {
+    if (column.kind !== 'numeric' && column.kind !== 'numeric-with-unit') continue
+    const fits: Partial<Record<ValueChannelId, MappingUnit>> = {}
+    for (const channel of CHANNEL_IDS) {
+      if (channel === 'time') continue
+      const spec = CHANNELS[channel]
+      const headerUnit = column.unit && quantityOf(column.unit) === spec.quantity ? column.unit : undefined
+      const unit = headerUnit ?? guessUnit(channel, column)
+      if (inRange(channel, column, unit)) fits[channel] = unit
+    }
+    out[column.header] = fits
+  }
+  return out
 }
 
 /** Threshold below which a column is not mapped automatically (the user is asked instead). */

@@ -66,7 +66,31 @@ export interface ParseResult {
   midnightWraps: number
   /** Time of day (s since midnight) of the first sample, for clock-formatted logs. */
   firstClockS: number
+  /** Where each drive of the file starts (see `DRIVE_BREAK`): the first one always at row 0. */
+  driveBreaks: DriveBreak[]
 }
+
+/** The first row of one drive of a file. */
+export interface DriveBreak {
+  /** Row (sample) index in the parsed arrays. */
+  row: number
+  /** 1-based line of the file. */
+  line: number
+  /** Time as the file writes it (s; for a time of day, s after midnight). */
+  rawTimeS: number
+  /** Why a new drive starts here. */
+  cause: 'start' | 'backwards' | 'jump'
+}
+
+/**
+ * When a file holds several drives (common practice, no source): time going back by more than
+ * `backwardsS` (a logger restarted its clock, or two files were joined), or jumping forward by more
+ * than `jumpS` between two rows (the logger was off in between). A smaller step back is one
+ * misplaced row, dropped with a warning as before.
+ */
+export const DRIVE_BREAK = { backwardsS: 10, jumpS: 300 } as const
+/** Gap placed after a drive when the next one's time starts earlier (keeps the joined time axis rising). */
+const DRIVE_GAP_S = 1
 
 class NeedsRobustPath extends Error {}
 
@@ -108,6 +132,8 @@ export class ColumnSink {
   backwardsRows = 0
   firstBackwardsLine = 0
   midnightWraps = 0
+  private firstRaw = Number.NaN
+  readonly driveBreaks: DriveBreak[] = []
 
   constructor(plan: ParsePlan) {
     this.plan = plan
@@ -204,10 +230,26 @@ export class ColumnSink {
     }
     this.previousRaw = raw
     raw += this.dayOffset
-    if (Number.isNaN(this.t0)) this.t0 = raw
-    const t = raw - this.t0
-    if (t < this.previousS) {
-      // Out-of-order rows would break every windowed computation downstream; drop and report them.
+    if (Number.isNaN(this.t0)) {
+      this.t0 = raw
+      this.firstRaw = raw
+      this.driveBreaks.push({ row: 0, line, rawTimeS: raw, cause: 'start' })
+    }
+    let t = raw - this.t0
+    const back = this.previousS - t
+    const jump = t - this.previousS
+    if (this.count > 0 && (back > DRIVE_BREAK.backwardsS || jump > DRIVE_BREAK.jumpS)) {
+      // A new drive: its time continues the joined axis just after the last one, and values held
+      // from the drive before are not carried over.
+      this.driveBreaks.push({ row: this.count, line, rawTimeS: raw, cause: back > 0 ? 'backwards' : 'jump' })
+      if (back > 0) {
+        this.t0 = raw - (this.previousS + DRIVE_GAP_S)
+        t = raw - this.t0
+      }
+      this.lastT.fill(Number.NEGATIVE_INFINITY)
+    }
+    else if (t < this.previousS) {
+      // One out-of-order row would break every windowed computation downstream; drop and report it.
       this.backwardsRows++
       if (this.firstBackwardsLine === 0) this.firstBackwardsLine = line
       return
@@ -280,7 +322,8 @@ export class ColumnSink {
       backwardsRows: this.backwardsRows,
       firstBackwardsLine: this.firstBackwardsLine,
       midnightWraps: this.midnightWraps,
-      firstClockS: this.plan.timeFormat === 'clock' || this.plan.timeFormat === 'hms' ? this.t0 : Number.NaN,
+      firstClockS: this.plan.timeFormat === 'clock' || this.plan.timeFormat === 'hms' ? this.firstRaw : Number.NaN,
+      driveBreaks: this.driveBreaks.length ? this.driveBreaks : [{ row: 0, line: 0, rawTimeS: 0, cause: 'start' }],
     }
   }
 }

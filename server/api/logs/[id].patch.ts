@@ -17,6 +17,9 @@ const body = z.object({
     add: z.array(window).max(50).optional(),
     remove: z.array(z.number().int().min(0)).max(200).optional(),
     adjust: z.array(z.object({ index: z.number().int().min(0), startS: z.number().min(0).optional(), endS: z.number().min(0).optional() })).max(200).optional(),
+    // Issue 10: the full-load rule set by hand, and "keep the pulls left out for a sensor fault".
+    rule: z.object({ channel: z.enum(['pedal', 'throttle']).optional(), thresholdPct: z.number().min(1, 'the full-load threshold is between 1 and 100 %').max(100, 'the full-load threshold is between 1 and 100 %'), sustained: z.boolean().optional() }).strict().optional(),
+    keepLeftOut: z.boolean().optional(),
   }).strict().optional(),
 }).strict()
 

@@ -27,6 +27,8 @@ const fields = z.object({
     if (problem) context.addIssue({ code: 'custom', message: problem })
   }).optional(),
   coreId: z.coerce.number().int().positive().optional(),
+  // Several drives in one file: "all" or drive numbers "0,2" (server/utils/drives.ts).
+  drives: z.string().max(200).optional(),
 })
 
 // Text fields are small (the mapping is the largest, 20 000 characters of up to 4 bytes each).
@@ -96,6 +98,8 @@ export default defineEventHandler(async (event) => {
     // Renamed to its id when stored; anything else leaves no file behind.
     if (temporary) await rm(temporary, { force: true })
   }
+  // Several drives in one file: "all" or drive numbers "0,2" (server/utils/drives.ts).
+  drives: z.string().max(200).optional(),
 })
 
 async function refuse(event: H3Event, statusCode: 413 | 503, message: string): Promise<never> {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { editsAddingPull, editsRemovingPull } from '../../../utils/pullEdits'
+import { editsAddingPull, editsKeepingLeftOut, editsRemovingPull, editsWithRule } from '../../../utils/pullEdits'
 import { pull } from '../../fixtures/report'
 
 describe('pull edits from the report', () => {
@@ -27,5 +27,23 @@ describe('pull edits from the report', () => {
 
   it('adds the chart window as a pull, earliest time first', () => {
     expect(editsAddingPull({ remove: [2] }, { startS: 130.04, endS: 120.01 })).toEqual({ remove: [2], add: [{ startS: 120, endS: 130 }] })
+  })
+})
+
+describe('the full-load rule and left-out pulls in the edits', () => {
+  it('keeps the rule set by hand and the keep choice when a pull is removed', () => {
+    const edits = { rule: { thresholdPct: 70 }, keepLeftOut: true }
+    expect(editsRemovingPull(edits, pull(0, 40))).toEqual({ rule: { thresholdPct: 70 }, keepLeftOut: true, remove: [0] })
+  })
+
+  it('drops removals and adjustments when the rule changes (they name the old pulls), keeping added pulls', () => {
+    const edits = { add: [{ startS: 10, endS: 20 }], remove: [2], adjust: [{ index: 1, startS: 5 }] }
+    expect(editsWithRule(edits, { channel: 'pedal' as const, thresholdPct: 65 })).toEqual({ add: [{ startS: 10, endS: 20 }], rule: { channel: 'pedal', thresholdPct: 65 } })
+    expect(editsWithRule({ rule: { thresholdPct: 65 } }, null)).toEqual({})
+  })
+
+  it('turns keeping the left-out pulls on and off', () => {
+    expect(editsKeepingLeftOut({ remove: [1] }, true)).toEqual({ remove: [1], keepLeftOut: true })
+    expect(editsKeepingLeftOut({ remove: [1], keepLeftOut: true }, false)).toEqual({ remove: [1] })
   })
 })

@@ -56,8 +56,30 @@ describe('verdictFor', () => {
   it('does not judge a log without pulls, and says how to record one', () => {
     const v = verdictFor(analysisWith(1, 0), diesel)
     expect(v.level).toBe('unknown')
-    expect(v.headline).toMatch(/No full-throttle runs/)
+    expect(v.headline).toMatch(/^No pulls found — here is how the charge air did over the drive/)
+    // The drive summary takes the place of the pull figures.
+    expect(v.summary).toMatch(/While moving, the charge air sat 9\.0 K above the outside air most of the time \(18\.0 K or less for 95 % of it, 24\.0 K at most\)/)
+    expect(v.summary).toMatch(/once the charge air heated up while the car was slow or stopped, by up to 11\.0 K\. Once moving again it took about 45 s to come back down/)
     expect(v.consider[0]).toMatch(/dyno or closed course/)
+  })
+
+  it('says first when most pulls were left out, with the reason, and offers to keep them', () => {
+    const analysis = analysisWith(1, 1)
+    analysis.summary.foundPullCount = 5
+    analysis.summary.leftOutPulls = [1, 2, 3, 4].map(k => ({ startS: k * 60, endS: k * 60 + 8, reasons: ['temp-step' as const] }))
+    const v = verdictFor(analysis, diesel)
+    expect(v.headline).toBe('Most pulls were left out: 4 of the 5 pulls found were left out, because the charge temperature jumped with no change in boost to explain it.')
+    expect(v.offerKeepLeftOut).toBe(true)
+    expect(v.meaning).toMatch(/If you trust the sensor there, keep those pulls/)
+  })
+
+  it('tells the soak events in plain words beside the pull verdict', () => {
+    const v = verdictFor(analysisWith(1.8), diesel)
+    expect(v.drive).toMatch(/Under boost \(60 s of the drive\) it sat 14\.0 K above/)
+    expect(v.drive).toMatch(/Heat soak in traffic: once/)
+    expect(v.offerKeepLeftOut).toBe(false)
+    expect(v.facts.find(f => f.label === 'Full-load rule')!.value).toBe('Accelerator pedal at ≥ 90.0 % (chosen automatically)')
+    expect(v.facts.some(f => /^Effectiveness, measured \(6 pulls\)$/.test(f.label))).toBe(true)
   })
 
   it('needs more than one pull to speak of soak', () => {

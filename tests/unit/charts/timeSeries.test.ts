@@ -114,4 +114,12 @@ describe('mergeDetail', () => {
     const overview = seriesFixture()
     expect(mergeDetail(overview, null)).toBe(overview)
   })
+
+  it('shades the soak events of the drive with their rise, only when there are any', () => {
+    const analysis = analysisWith(1.8)
+    const base = { data: seriesFixture(), pulls: analysis.pulls, masks: analysis.masks, units: { temperature: 'C', pressure: 'kPa' } as const }
+    const withSoak = seriesOf(timeSeriesOption({ ...base, soakEvents: [{ startS: 320, endS: 360, riseK: 11.04, recoveryS: 45 }] }))
+    expect(withSoak.find(s => s.name === 'Soak events')!.markArea!.data).toEqual([[{ name: '+11 K', xAxis: 320 }, { xAxis: 360 }]])
+    expect(seriesOf(timeSeriesOption({ ...base, soakEvents: [] })).some(s => s.name === 'Soak events')).toBe(false)
+  })
 })

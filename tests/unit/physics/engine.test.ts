@@ -35,7 +35,8 @@ describe('compressor outlet temperature (standard ideal-gas relation; Heywood 19
 
   it('backs the efficiency out of a measured outlet temperature, NaN without a rise', () => {
     expect(compressorEfficiencyFromTemps(298.15, 402.778004, 2.2)).toBeCloseTo(0.72, 6)
-    expect(Number.isNaN(compressorEfficiencyFromTemps(298.15, 298.15, 2.2))).toBe(true)
+    // No rise, no efficiency: a clear error instead of NaN (issue 10).
+    expect(() => compressorEfficiencyFromTemps(298.15, 298.15, 2.2)).toThrow(/not above the inlet/)
   })
 })
 

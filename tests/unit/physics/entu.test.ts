@@ -78,7 +78,7 @@ describe('inverse NTU for a target ε (reference sheet §6.2, brentq, COMPUTED)'
 
   it('returns 0 for ε ≤ 0 and NaN when ε is out of reach', () => {
     expect(ntuForEffectiveness(0, 0.5)).toBe(0)
-    expect(Number.isNaN(ntuForEffectiveness(0.99, 1))).toBe(true)
+    expect(() => ntuForEffectiveness(0.99, 1)).toThrow(/not reached/)
   })
 })
 
@@ -114,6 +114,22 @@ describe('candidate core (reference sheet §6.3, COMPUTED)', () => {
     expect(Math.abs(cal.ntu - 2.24683)).toBeLessThan(5e-5)
     expect(Math.abs(cal.ua - 350)).toBeLessThan(0.05)
     expect(cal.assumptions.length).toBeGreaterThan(0)
+  })
+
+  it('calibrateUa answers impossible input with a clear error, never NaN', () => {
+    const base = { effectiveness: 0.7, chargeMassFlowKgS: 0.155, coolingMassFlowKgS: 0.85 }
+    expect(() => calibrateUa({ ...base, effectiveness: Number.NaN })).toThrow(/effectiveness must be strictly between 0 and 1/)
+    expect(() => calibrateUa({ ...base, effectiveness: 1.2 })).toThrow(/between 0 and 1/)
+    expect(() => calibrateUa({ ...base, chargeMassFlowKgS: 0 })).toThrow(/charge-air mass flow must be a positive number/)
+    expect(() => calibrateUa({ ...base, coolingMassFlowKgS: -1 })).toThrow(/cooling-air mass flow/)
+    // 0.9 hot-side with cooling air at a third of the charge flow would need a true ε of 2.7.
+    expect(() => calibrateUa({ ...base, effectiveness: 0.9, coolingMassFlowKgS: 0.05 })).toThrow(/cannot be reached/)
+    try {
+      calibrateUa({ ...base, effectiveness: 0 })
+    }
+    catch (error) {
+      expect((error as { code: string }).code).toBe('IMPOSSIBLE_INPUT')
+    }
   })
 
   it('converts hot-side ε to the true ε when the cooling air is C_min (slow traffic), then finds NTU from the sheet table', () => {
