@@ -7,6 +7,7 @@ import {
   isLogImportError,
   type AnalyseOptions,
   type AnalysisResult,
+  type LogImportErrorDetails,
   type ImportOptions,
   type ImportedLog,
   type LogImportErrorCode,
@@ -28,7 +29,7 @@ export interface AnalysedLog {
 export interface EngineFailure {
   code: LogImportErrorCode
   message: string
-  details: { column?: string, line?: number, channel?: string, drives?: LogImportError['drives'] }
+  details: { column?: string, line?: number, channel?: string, drives?: LogImportErrorDetails['drives'] }
 }
 
 export type JobReply

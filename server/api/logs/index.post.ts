@@ -80,7 +80,7 @@ export default defineEventHandler(async (event) => {
       mapping = profile.mapping as MappingInput
     }
 
-    const { log } = await storeNewLog({
+    const newLog = {
       actor,
       vehicle,
       file: { temporaryPath: file.path, sizeBytes: file.sizeBytes, sha256: file.sha256 },
@@ -90,7 +90,14 @@ export default defineEventHandler(async (event) => {
       notes: input.notes,
       recordedOn: input.recordedOn,
       coreId: input.coreId,
-    })
+    }
+    // Drive choice given: one log per chosen drive (server/utils/drives.ts), answered with their ids.
+    if (input.drives !== undefined) {
+      const ids = await storeChosenDrives(newLog, input.drives)
+      setResponseStatus(event, 201)
+      return { ids }
+    }
+    const { log } = await storeNewLog(newLog)
     setResponseStatus(event, 201)
     return logDetail(log, vehicle)
   }
@@ -98,8 +105,6 @@ export default defineEventHandler(async (event) => {
     // Renamed to its id when stored; anything else leaves no file behind.
     if (temporary) await rm(temporary, { force: true })
   }
-  // Several drives in one file: "all" or drive numbers "0,2" (server/utils/drives.ts).
-  drives: z.string().max(200).optional(),
 })
 
 async function refuse(event: H3Event, statusCode: 413 | 503, message: string): Promise<never> {
