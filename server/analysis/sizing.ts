@@ -24,6 +24,7 @@ import { compressorEfficiencyFromTemps, compressorOutletTempK, DEFAULT_COMPRESSO
 import { KELVIN_OFFSET, R_DRY_AIR } from './constants'
 import { dryAirDensity } from './density'
 import { calibrateUa, massFlowFromPower, massFlowSpeedDensity, predictCore } from './entu'
+import { LogImportError } from './import/errors'
 
 export class SizingError extends Error {
   constructor(public readonly code: SizingErrorCode, message: string) {
@@ -279,10 +280,17 @@ export function sizeCores(input: SizingInput): SizingResult {
   const calibrationAirMS = calibrationRoadKmh / 3.6 * speedRatio
   const rhoLog = input.options?.coolingAirDensityKgM3 ?? dryAirDensity(baroKpa * 1000, toK(logAmbientC), R_DRY_AIR)
   const fittedFaceM2 = faceArea(input.fittedCore)
-  const calibration = calibrateUa({ effectiveness, chargeMassFlowKgS: flow.massFlowKgS, coolingMassFlowKgS: rhoLog * calibrationAirMS * fittedFaceM2 })
-  if (!Number.isFinite(calibration.ua) || calibration.ua <= 0) {
-    throw new SizingError('NOT_CALIBRATABLE', `An effectiveness of ${effectiveness.toFixed(2)} is more than a ${input.fittedCore.faceWidthMm} × ${input.fittedCore.faceHeightMm} mm core can reach with the cooling air it gets at ${calibrationRoadKmh.toFixed(0)} km/h. Check the core recorded for this log and its sensors.`)
+  const unreachable = () => new SizingError('NOT_CALIBRATABLE', `An effectiveness of ${effectiveness.toFixed(2)} is more than a ${input.fittedCore.faceWidthMm} × ${input.fittedCore.faceHeightMm} mm core can reach with the cooling air it gets at ${calibrationRoadKmh.toFixed(0)} km/h. Check the core recorded for this log and its sensors.`)
+  let calibration: ReturnType<typeof calibrateUa>
+  try {
+    calibration = calibrateUa({ effectiveness, chargeMassFlowKgS: flow.massFlowKgS, coolingMassFlowKgS: rhoLog * calibrationAirMS * fittedFaceM2 })
   }
+  catch (error) {
+    // calibrateUa refuses an effectiveness the cooling air cannot give: said here in the sizing's words.
+    if (error instanceof LogImportError && error.code === 'IMPOSSIBLE_INPUT') throw unreachable()
+    throw error
+  }
+  if (!Number.isFinite(calibration.ua) || calibration.ua <= 0) throw unreachable()
   const reference: ScaleReference = { ua: calibration.ua, core: input.fittedCore, chargeMassFlowKgS: flow.massFlowKgS, airSpeedMS: calibrationAirMS }
 
   // Design point.

@@ -21,7 +21,7 @@ export default defineEventHandler(async (event) => {
     throw error
   }
   const user = toSessionUser(currentUserFromRow(created.owner))
-  await replaceUserSession(event, { user, loggedInAt: Date.now() })
+  await startSession(event, user, created.owner.sessionVersion)
   setResponseStatus(event, 201)
   return { user, workshop: { id: created.workshop.id, name: created.workshop.name, currency: created.workshop.currency } }
 })

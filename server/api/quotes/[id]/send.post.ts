@@ -19,9 +19,9 @@ export default defineEventHandler(async (event) => {
   const sentAt = new Date()
   const { bytes, filename } = await quotePdfFor({ ...quote, sentAt })
   const money = (cents: number) => formatMoney(cents, quote.currency)
-  const row = db.transaction((tx) => {
+  const { row, mailId } = db.transaction((tx) => {
     const moved = moveQuote(tx, quote, 'send', actor.id, { sentAt }, { to: customer.email })
-    queueMail(tx, {
+    const mail = queueMail(tx, {
       workshopId: quote.workshopId,
       to: customer.email,
       subject: `Quote ${quote.number} from ${workshop.name}`,
@@ -40,7 +40,9 @@ export default defineEventHandler(async (event) => {
       ].join('\n'),
       attachments: [{ filename, contentType: 'application/pdf', content: bytes }],
     })
-    return moved
+    return { row: moved, mailId: mail.id }
   })
-  return quoteDetail(row)
+  // Say whether the e-mail really went, not only that it was queued.
+  const mail = await awaitFirstDelivery(mailId)
+  return { ...quoteDetail(row), mail }
 })
