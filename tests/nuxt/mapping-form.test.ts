@@ -111,7 +111,7 @@ describe('MappingForm', () => {
     expect(wrapper.find('[data-testid="ambient-prompt"]').text()).toBe('This log has no outside air temperature. Enter the temperature outside during the runs — without it the charge air cannot be compared with the air going in.')
     expect(wrapper.text()).toContain('This log has no outside air temperature. Enter the temperature outside during the runs.')
     await wrapper.find('[data-testid="condition-ambient"]').setValue('75')
-    expect(wrapper.text()).toContain('The outside temperature must be between −40 and 60 °C.')
+    expect(wrapper.text()).toContain('The outside air temperature must be between -40 and 60 °C.')
     await wrapper.find('[data-testid="condition-ambient"]').setValue('28,5')
     expect(useUploadDraftStore().conditions.ambientTempC).toBe(28.5)
     expect(wrapper.text()).not.toContain('must be between')

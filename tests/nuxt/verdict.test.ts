@@ -42,11 +42,11 @@ describe('ReportVerdict', () => {
 
   it('reads the exact words a driver sees for a fair soak on a 110 kW diesel', async () => {
     const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1.8), vehicle } })
-    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('Some heat soak: the car loses a little power run after run')
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('Some heat soak: the car loses a little power pull after pull')
     // 40 → 49 °C over six pulls; 1 − 313.15/322.15 = 2.794 % of 110 kW = 3.07 kW.
-    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('Over six pulls the charge air climbed 9.0 K from the first to the last run, and the hottest run made about 2.8 % (about 3.1 kW) less power than the coolest.')
+    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('Over six pulls the charge air climbed 9.0 K from the first to the last pull, and the hottest pull made about 2.8 % (about 3.1 kW) less power than the coolest.')
     expect(wrapper.findAll('[data-testid="verdict-consider"] li').map(li => li.text())).toEqual([
-      'Give the car more time between hard runs; the charge air recovers as the core cools.',
+      'Give the car more time between hard pulls; the charge air recovers as the core cools.',
     ])
     const facts = Object.fromEntries(wrapper.findAll('[data-testid="verdict-facts"] > div').map(div => [div.find('dt').text(), div.find('dd').text()]))
     expect(facts).toMatchObject({
@@ -61,11 +61,10 @@ describe('ReportVerdict', () => {
 
   it('marks an estimated effectiveness and warns when the core removes little heat', async () => {
     const analysis = analysisWith(1.8)
-    analysis.summary.meanEffectiveness = 0.55
-    analysis.summary.effectivenessSource = 'estimated'
+    Object.assign(analysis.summary, { meanEffectiveness: 0.55, effectivenessSource: 'estimated', measuredPullCount: 0, meanEffectivenessMeasured: null, estimatedPullCount: 6, meanEffectivenessEstimated: 0.55 })
     const wrapper = await mountSuspended(Verdict, { props: { analysis, vehicle } })
-    const facts = wrapper.findAll('[data-testid="verdict-facts"] dd').map(dd => dd.text())
-    expect(facts).toContain('55 % (estimated)')
+    const facts = Object.fromEntries(wrapper.findAll('[data-testid="verdict-facts"] > div').map(div => [div.find('dt').text(), div.find('dd').text()]))
+    expect(facts['Effectiveness, estimated (6 pulls; reads low)']).toBe('55 %')
     expect(wrapper.find('[data-testid="verdict-consider"]').text()).toContain('The intercooler removes only about 55 % of the heat it could: check for a blocked or damaged core and for air going around it.')
   })
 
@@ -81,8 +80,8 @@ describe('ReportVerdict', () => {
   it('does not judge soak from a single pull', async () => {
     const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1, 1), vehicle } })
     expect(wrapper.find('[data-testid="verdict"]').attributes('data-level')).toBe('unknown')
-    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('One full-throttle run: not enough to judge heat soak')
-    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('In the one run found, the charge air sat 10.0 K above the outside air.')
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('One pull: not enough to judge heat soak from pull to pull')
+    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('In the one pull found, the charge air sat 10.0 K above the outside air.')
   })
 
   it('calls heavy soak poor, in the danger tone, and names a bigger core and knock on a petrol car', async () => {
