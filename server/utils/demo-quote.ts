@@ -4,11 +4,14 @@ import type { Db } from './db'
 
 // The demo's quoted car: a sent quote for the hatchback's front-mount, its e-mail (with the PDF)
 // in the outbox, exactly as the send route leaves them. Invented figures.
-export async function seedDemoQuote(db: Db, ids: { workshopId: number, fabricatorId: number, vehicleId: number, coreId: number }) {
+export async function seedDemoQuote(db: Db, ids: { workshopId: number, fabricatorId: number, vehicleId: number, coreId: number, sizingId?: number }) {
   const workshop = db.select().from(tables.workshops).where(eq(tables.workshops.id, ids.workshopId)).get()!
   const vehicle = db.select().from(tables.vehicles).where(eq(tables.vehicles.id, ids.vehicleId)).get()!
   const customer = db.select().from(tables.users).where(eq(tables.users.id, vehicle.ownerId)).get()!
   const core = db.select().from(tables.cores).where(eq(tables.cores.id, ids.coreId)).get()!
+  // The sizing the quote follows from, copied as POST /api/quotes copies it.
+  const sizingRow = ids.sizingId ? db.select().from(tables.sizings).where(eq(tables.sizings.id, ids.sizingId)).get() : undefined
+  const sizing = sizingRow ? { sizingId: sizingRow.id, logId: sizingRow.logId, design: sizingRow.design, result: sizingRow.result, sizedAt: sizingRow.createdAt.toISOString() } : null
   const lines = [
     { description: `Core: ${core.name}`, quantity: 1, unitPriceCents: core.priceCents ?? 0 },
     { description: 'Charge pipework, aluminium 63 mm, per metre', quantity: 2.4, unitPriceCents: 3250 },
@@ -29,6 +32,8 @@ export async function seedDemoQuote(db: Db, ids: { workshopId: number, fabricato
       vehicleId: vehicle.id,
       customerId: customer.id,
       coreId: core.id,
+      sizingId: sizingRow?.id ?? null,
+      sizing,
       currency: workshop.currency,
       subtotalCents: totals.subtotalCents,
       taxRatePct,

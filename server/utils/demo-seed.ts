@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm'
+import { and, eq, isNull } from 'drizzle-orm'
 import { generateDemoLog } from '../analysis'
 import type { Db } from './db'
 import type { Role } from '#shared/utils/roles'
@@ -77,7 +77,13 @@ export async function seedDemoIfEmpty(db: Db) {
     stored[entry.coreId === seeded.stock.id ? 'before' : 'after'].push(log.id)
   }
   await seedDemoComparison(db, actor, seeded.hatchback.id, stored)
-  await seedDemoQuote(db, { workshopId: seeded.kestrel.id, fabricatorId: seeded.fabricator.id, vehicleId: seeded.hatchback.id, coreId: seeded.frontMount.id })
+  // The fabricator sized the current front-mounts against the factory-core log (35 °C design day)
+  // and quoted the 600 from that sizing, as the sizing page and the quote form would.
+  const fabricator = { id: seeded.fabricator.id, role: seeded.fabricator.role, workshopId: seeded.kestrel.id }
+  const frontMounts = db.select({ id: tables.cores.id }).from(tables.cores)
+    .where(and(eq(tables.cores.workshopId, seeded.kestrel.id), eq(tables.cores.kind, 'front-mount'), isNull(tables.cores.retiredAt))).all()
+  const sizing = await runSizing(fabricator, { vehicleId: seeded.hatchback.id, logId: stored.before[0]!, candidateCoreIds: frontMounts.map(core => core.id), design: { ambientC: 35 } })
+  await seedDemoQuote(db, { workshopId: seeded.kestrel.id, fabricatorId: seeded.fabricator.id, vehicleId: seeded.hatchback.id, coreId: seeded.frontMount.id, sizingId: sizing.id })
   return true
 }
 
