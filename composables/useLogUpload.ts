@@ -1,4 +1,5 @@
-import type { DriveInfo, LogDetail } from '#shared/types/report'
+import type { DriveInfo } from '#shared/types/report'
+import type { LogDetail } from './useLogs'
 
 /** What the server answers: the log, or with a drive choice the ids of one log per drive. */
 export type UploadResult = LogDetail | { ids: number[] }
