@@ -1,4 +1,9 @@
-import type { AnalysisResult, LogDetail, LogListItem, LogProfile, ShareLink } from '#shared/types/report'
+import type { InternalApi } from 'nitropack/types'
+import type { AnalysisResult, LogProfile, ShareLink } from '#shared/types/report'
+
+// What the log routes reply, as the routes build it (serialised: dates as strings); no hand-kept copy.
+export type LogListItem = InternalApi['/api/logs']['get'][number]
+export type LogDetail = InternalApi['/api/logs/:id']['get']
 
 export function useLogs(vehicleId?: MaybeRefOrGetter<number | null | undefined>) {
   return useFetch<LogListItem[]>('/api/logs', {

@@ -1,5 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import type Stripe from 'stripe'
+import { QUOTE_MAKER_ROLES } from '#shared/utils/abilities'
 import { formatMoney } from '#shared/utils/format'
 import { canMoveQuote } from '#shared/utils/quotes'
 
@@ -34,7 +35,7 @@ export function recordPaymentNotice(notice: Stripe.Event) {
     else recordAudit(tx, { workshopId: quote.workshopId, userId: quote.customerId, action: 'payment-on-closed-quote', entity: 'quote', entityId: quote.id, detail: { ...detail, status: quote.status } })
 
     const staff = tx.select({ email: tables.users.email, name: tables.users.name }).from(tables.users)
-      .where(and(eq(tables.users.workshopId, quote.workshopId), inArray(tables.users.role, ['owner', 'fabricator']))).all()
+      .where(and(eq(tables.users.workshopId, quote.workshopId), inArray(tables.users.role, [...QUOTE_MAKER_ROLES]))).all()
     const vehicle = tx.select({ description: tables.vehicles.description }).from(tables.vehicles).where(eq(tables.vehicles.id, quote.vehicleId)).get()
     const amount = formatMoney(session.amount_total, quote.currency)
     for (const person of staff) {

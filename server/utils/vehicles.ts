@@ -1,6 +1,6 @@
 import { and, eq, type SQL } from 'drizzle-orm'
 import { z } from 'zod'
-import { canSeeAllVehicles, type Actor } from '#shared/utils/abilities'
+import { canSeeAllVehicles, isCustomer, type Actor } from '#shared/utils/abilities'
 import { FUELS } from '../../db/schema'
 
 // The fields of a car, without defaults: a patch derives from this with .partial(), so a key the
@@ -46,7 +46,7 @@ export function findVisibleVehicle(actor: Actor, id: number) {
 export function assertDriverOfWorkshop(actor: Actor, ownerId: number) {
   const owner = useDb().select().from(tables.users).where(and(eq(tables.users.id, ownerId), eq(tables.users.workshopId, actor.workshopId))).get()
   if (!owner) badRequest('ownerId: no customer with that id in your workshop. Pick the customer from the list, or invite them first.')
-  if (owner.role !== 'driver') badRequest('ownerId: a car belongs to a customer (driver) account. Pick a customer, not a staff member.')
+  if (!isCustomer(owner)) badRequest('ownerId: a car belongs to a customer (driver) account. Pick a customer, not a staff member.')
 }
 
 // The core catalogue is staff-only, so only staff say which core is fitted. A retired core is not

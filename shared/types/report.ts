@@ -3,7 +3,7 @@
 // server reaches the client bundle, and the client cannot drift from the engine's JSON.
 // Values stay SI (°C, K, kPa, kW, %); display units are chosen at the edge by the units store.
 
-import type { AnalysisResult, ChannelId, ColumnPreview, MappingInput, PullEdits } from '../../server/analysis'
+import type { AnalysisResult, ChannelId, ColumnPreview, MappingInput } from '../../server/analysis'
 
 export type {
   AnalysisResult,
@@ -62,45 +62,6 @@ export interface LogVehicle {
   ownerId: number
 }
 
-export interface LogDetail {
-  id: number
-  vehicleId: number
-  vehicle: LogVehicle
-  originalName: string
-  sizeBytes: number
-  rowCount: number
-  durationS: number
-  conditions: LogConditions
-  notes: string
-  pullEdits: PullEdits | null
-  mapping?: MappingInput
-  channels: string[]
-  recordedOn?: string | null
-  createdAt: string
-  uploadedByName: string | null
-}
-
-export interface LogListItem {
-  id: number
-  vehicleId: number
-  vehicleDescription: string
-  originalName: string
-  sizeBytes: number
-  rowCount: number
-  durationS: number
-  recordedOn?: string | null
-  createdAt: string
-  uploadedByName: string | null
-  notes: string
-  summary: {
-    pullCount: number
-    peakChargeTempC: number | null
-    maxPowerLossVsCoolestPct: number | null
-    soakIndexKPerPull: number | null
-    meanEffectiveness: number | null
-  }
-}
-
 export interface ShareLink {
   id: number
   createdAt: string
@@ -113,7 +74,7 @@ export interface SharedReport {
   kind: 'log'
   workshopName: string
   vehicleDescription: string
-  log: Pick<LogDetail, 'notes' | 'createdAt' | 'recordedOn'> & { vehicle: Pick<LogVehicle, 'ratedPowerKw' | 'fuel'> }
+  log: { notes: string, createdAt: string, recordedOn?: string | null } & { vehicle: Pick<LogVehicle, 'ratedPowerKw' | 'fuel'> }
   analysis: AnalysisResult
 }
 

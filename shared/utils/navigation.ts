@@ -1,3 +1,4 @@
+import { canManageMembers, canManagePrices, canSeeAllVehicles, canSeeAllQuotes, canViewCores, canViewOutbox, isCustomer } from './abilities'
 import type { Role } from './roles'
 
 export interface NavItem {
@@ -7,18 +8,20 @@ export interface NavItem {
 
 // The menu each role sees. Pages still check on the server; this only hides what a role cannot use.
 export function navigationFor(role: Role): NavItem[] {
-  const home: NavItem = { to: '/', label: role === 'driver' ? 'My cars' : 'Overview' }
+  const user = { role }
+  const home: NavItem = { to: '/', label: isCustomer(user) ? 'My cars' : 'Overview' }
   const items: NavItem[] = [home]
-  if (role !== 'driver') items.push({ to: '/vehicles', label: 'Cars' })
+  if (canSeeAllVehicles(user)) items.push({ to: '/vehicles', label: 'Cars' })
   // The fabricator reads the reports to size a core; the driver finds logs on their car's page.
-  if (role !== 'driver') items.push({ to: '/logs', label: 'Logs' })
+  if (canSeeAllVehicles(user)) items.push({ to: '/logs', label: 'Logs' })
   // The tuner reads the catalogue (read-only) to recommend a core.
-  if (role !== 'driver') items.push({ to: '/cores', label: 'Core catalogue' })
+  if (canViewCores(user)) items.push({ to: '/cores', label: 'Core catalogue' })
   // The driver finds their quotes on their car's page.
-  if (role !== 'driver') items.push({ to: '/quotes', label: 'Quotes' })
-  if (role === 'owner') items.push({ to: '/members', label: 'People' }, { to: '/workshop', label: 'Workshop & prices' })
+  if (canSeeAllQuotes(user)) items.push({ to: '/quotes', label: 'Quotes' })
+  if (canManageMembers(user)) items.push({ to: '/members', label: 'People' })
+  if (canManagePrices(user)) items.push({ to: '/workshop', label: 'Workshop & prices' })
   // The fabricator follows the quote e-mails they send; the owner sees every e-mail.
-  if (role === 'owner' || role === 'fabricator') items.push({ to: '/outbox', label: 'Outbox' })
+  if (canViewOutbox(user)) items.push({ to: '/outbox', label: 'Outbox' })
   items.push({ to: '/account', label: 'My account' })
   return items
 }

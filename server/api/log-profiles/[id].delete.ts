@@ -3,7 +3,7 @@ import { and, eq } from 'drizzle-orm'
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
   const { id } = readParamsWith(event, idParams)
-  if (!(actor.role === 'owner' || actor.role === 'tuner')) forbidden('Only a tuner or the workshop owner removes log profiles.')
+  if (!canManageLogProfiles(actor)) forbidden('Only a tuner or the workshop owner removes log profiles.')
   const where = and(eq(tables.logProfiles.id, id), eq(tables.logProfiles.workshopId, actor.workshopId))
   const db = useDb()
   if (!db.select({ id: tables.logProfiles.id }).from(tables.logProfiles).where(where).get()) notFound('Log profile')

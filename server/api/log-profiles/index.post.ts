@@ -10,7 +10,7 @@ const body = z.object({
 
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
-  if (!(actor.role === 'owner' || actor.role === 'tuner')) forbidden('Only a tuner or the workshop owner saves log profiles for the workshop.')
+  if (!canManageLogProfiles(actor)) forbidden('Only a tuner or the workshop owner saves log profiles for the workshop.')
   const input = await readBodyWith(event, body)
   let mapping
   try {

@@ -21,7 +21,7 @@ const trimCell = (cell: string) => cell.length > PREVIEW_CELL_CHARS ? `${cell.sl
 // mapping (one implementation, the server's), plus a saved profile for the same header if any.
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
-  if (!(actor.role === 'owner' || actor.role === 'tuner' || actor.role === 'driver')) forbidden('Your role does not upload logs.')
+  if (!canUploadLogs(actor)) forbidden('Your role does not upload logs.')
   const { sample, fileName } = await readBodyWith(event, body)
   const problem = checkLogFile(fileName, 1)
   if (problem) throw createError({ statusCode: 415, message: problem })

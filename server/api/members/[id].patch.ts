@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   requireOwner(actor)
   const member = findMember(actor, id)
   const { role } = await readBodyWith(event, body)
-  if (member.role === 'owner' && role !== 'owner' && ownerCount(actor.workshopId) <= 1) {
+  if (isWorkshopOwner(member) && !isWorkshopOwner({ role }) && ownerCount(actor.workshopId) <= 1) {
     badRequest('A workshop needs at least one owner. Make someone else owner first.')
   }
   return useDb().transaction((tx) => {

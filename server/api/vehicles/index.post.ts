@@ -5,7 +5,7 @@ export default defineEventHandler(async (event) => {
 
   // A driver adds cars to their own account only; staff choose the customer.
   let ownerId = actor.id
-  if (actor.role === 'driver') {
+  if (!canChooseCarCustomer(actor)) {
     if (input.ownerId !== undefined && input.ownerId !== actor.id) forbidden('You can add cars to your own account only.')
   }
   else {

@@ -96,6 +96,45 @@ describe('abilities', () => {
     for (const role of ROLES) expect(abilities.canViewCoreEvidence(actor(role))).toBe(role !== 'driver')
   })
 
+  it('tells a customer, the workshop owner and the staff apart, on actors and stored member rows alike', () => {
+    for (const role of ROLES) {
+      expect(abilities.isCustomer({ role })).toBe(role === 'driver')
+      expect(abilities.isWorkshopOwner({ role })).toBe(role === 'owner')
+      expect(abilities.isStaff({ role })).toBe(role !== 'driver')
+    }
+  })
+
+  it('lets staff list and choose customers, and a customer only add a car to their own account', () => {
+    for (const role of ROLES) {
+      expect(abilities.canListCustomers(actor(role))).toBe(role !== 'driver')
+      expect(abilities.canChooseCarCustomer(actor(role))).toBe(role !== 'driver')
+      expect(abilities.canCreateVehicle(actor(role))).toBe(role !== 'fabricator')
+    }
+  })
+
+  it('lets owner, tuner and customer upload logs, and only owner and tuner keep log profiles', () => {
+    for (const role of ROLES) {
+      expect(abilities.canUploadLogs(actor(role))).toBe(role !== 'fabricator')
+      expect(abilities.canManageLogProfiles(actor(role))).toBe(role === 'owner' || role === 'tuner')
+    }
+  })
+
+  it('shows the pulls form to owner and tuner, not to the customer who may change their own log', () => {
+    expect(abilities.canEditLog(actor('driver'), ownCar)).toBe(true)
+    expect(abilities.canEditPulls(actor('driver'), ownCar)).toBe(false)
+    expect(abilities.canEditPulls(actor('tuner'), otherCar)).toBe(true)
+    expect(abilities.canEditPulls(actor('owner'), otherCar)).toBe(true)
+    expect(abilities.canEditPulls(actor('fabricator'), otherCar)).toBe(false)
+  })
+
+  it('gives the road-logging cautions to the tuner and the customer, and quotes to owner and fabricator', () => {
+    for (const role of ROLES) {
+      expect(abilities.seesLoggingCautions(actor(role))).toBe(role === 'tuner' || role === 'driver')
+      expect(abilities.canSeeAllQuotes(actor(role))).toBe(role !== 'driver')
+      expect(abilities.QUOTE_MAKER_ROLES.includes(role)).toBe(role === 'owner' || role === 'fabricator')
+    }
+  })
+
   it('recognises the four roles and nothing else', () => {
     expect(ROLES.every(isRole)).toBe(true)
     expect(isRole('admin')).toBe(false)
