@@ -45,7 +45,7 @@ export async function seedDemoIfEmpty(db: Db) {
       { workshopId: harbourside.id, name: 'Harbourside tube-and-fin front-mount 700', kind: 'front-mount', faceWidthMm: 700, faceHeightMm: 300, depthMm: 80, priceCents: 72_000, notes: '' },
     ]).run()
 
-    const hatchback = tx.insert(tables.vehicles).values({ workshopId: kestrel.id, ownerId: k['driver@kestrel.test']!.id, description: '2.0 L four-cylinder turbo-diesel hatchback', registration: 'KR 21 DSL', displacementL: 2.0, cylinders: 4, fuel: 'diesel', ratedPowerKw: 110, fittedCoreId: stock.id, notes: 'Customer reports power fading on the third hard run up the hill.' }).returning().get()
+    const hatchback = tx.insert(tables.vehicles).values({ workshopId: kestrel.id, ownerId: k['driver@kestrel.test']!.id, description: '2.0 L four-cylinder turbo-diesel hatchback', registration: 'KR 21 DSL', displacementL: 2.0, cylinders: 4, fuel: 'diesel', ratedPowerKw: 110, fittedCoreId: stock.id, notes: 'Customer reports power fading on the third hard pull up the hill.' }).returning().get()
     tx.insert(tables.vehicles).values([
       { workshopId: kestrel.id, ownerId: k['driver2@kestrel.test']!.id, description: '1.8 L four-cylinder turbo-petrol estate', registration: 'KR 19 PTL', displacementL: 1.8, cylinders: 4, fuel: 'petrol', ratedPowerKw: 132, notes: '' },
       { workshopId: harbourside.id, ownerId: h['driver@harbourside.test']!.id, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HB 20 TOW', displacementL: 3.0, cylinders: 6, fuel: 'diesel', ratedPowerKw: 190, notes: 'Tows a boat trailer up the slipway.' },

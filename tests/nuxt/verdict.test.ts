@@ -42,9 +42,9 @@ describe('ReportVerdict', () => {
 
   it('reads the exact words a driver sees for a fair soak on a 110 kW diesel', async () => {
     const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1.8), vehicle } })
-    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('Some heat soak: the car loses a little power run after run')
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('Some heat soak: the car loses a little power pull after pull')
     // 40 → 49 °C over six pulls; 1 − 313.15/322.15 = 2.794 % of 110 kW = 3.07 kW.
-    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('Over six pulls the charge air climbed 9.0 K from the first to the last run, and the hottest run made about 2.8 % (about 3.1 kW) less power than the coolest.')
+    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('Over six pulls the charge air climbed 9.0 K from the first to the last pull, and the hottest pull made about 2.8 % (about 3.1 kW) less power than the coolest.')
     expect(wrapper.findAll('[data-testid="verdict-consider"] li').map(li => li.text())).toEqual([
       'Give the car more time between hard runs; the charge air recovers as the core cools.',
     ])
@@ -53,7 +53,7 @@ describe('ReportVerdict', () => {
       'Pulls analysed': '6',
       'Charge-air rise, first to last pull': '9.0 K',
       'Soak per pull': '1.80 K per pull (fit R² 0.98)',
-      'Mean rise over outside air': '14.5 K',
+      'Mean temperature over ambient': '14.5 K',
       'Most power lost vs coolest pull': '2.8 %',
       'Core recovery time constant': '80 s',
     })
@@ -73,7 +73,7 @@ describe('ReportVerdict', () => {
     const analysis = analysisWith(1.8)
     analysis.summary.ambientSource = 'entered'
     const wrapper = await mountSuspended(Verdict, { props: { analysis, vehicle } })
-    expect(wrapper.find('[data-testid="verdict-assumptions"]').text()).toMatch(/The outside air temperature was entered by hand, not logged\.$/)
+    expect(wrapper.find('[data-testid="verdict-assumptions"]').text()).toMatch(/The ambient temperature was entered by hand, not logged\.$/)
     const logged = await mountSuspended(Verdict, { props: { analysis: analysisWith(1.8), vehicle } })
     expect(logged.find('[data-testid="verdict-assumptions"]').text()).not.toContain('entered by hand')
   })
@@ -81,8 +81,8 @@ describe('ReportVerdict', () => {
   it('does not judge soak from a single pull', async () => {
     const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1, 1), vehicle } })
     expect(wrapper.find('[data-testid="verdict"]').attributes('data-level')).toBe('unknown')
-    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('One full-throttle run: not enough to judge heat soak')
-    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('In the one run found, the charge air sat 10.0 K above the outside air.')
+    expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('One pull: not enough to judge heat soak from pull to pull')
+    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('In the one pull found, the charge air sat 10.0 K above the ambient temperature.')
   })
 
   it('calls heavy soak poor, in the danger tone, and names a bigger core and knock on a petrol car', async () => {

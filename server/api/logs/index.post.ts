@@ -33,7 +33,7 @@ const fields = z.object({
 
 // Text fields are small (the mapping is the largest, 20 000 characters of up to 4 bytes each).
 const FORM_LIMITS = { fileBytes: LOG_UPLOAD_LIMITS.maxBytes, fieldBytes: 96 * 1024, fields: 16 }
-const TOO_LARGE = `The file is larger than ${LOG_UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB. Trim the log to the session with the hard runs, or export fewer channels, and upload again.`
+const TOO_LARGE = `The file is larger than ${LOG_UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB. Trim the log to the part with the hard pulls, or export fewer channels, and upload again.`
 
 // The body is streamed: fields into memory, the file straight to a temporary file, the byte limit
 // enforced while reading. Import and analysis then run in the worker pool; this request only waits.
