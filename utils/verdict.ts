@@ -110,7 +110,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
       : [{ label: 'Mean effectiveness', value: summary.meanEffectiveness == null ? '—' : `${(summary.meanEffectiveness * 100).toFixed(0)} %${summary.effectivenessSource === 'estimated' ? ' (estimated)' : ''}` }]),
     { label: 'Most power lost vs coolest pull', value: summary.maxPowerLossVsCoolestPct == null ? '—' : pct(summary.maxPowerLossVsCoolestPct) },
   ]
-  if (summary.recoveryTimeConstantS != null) facts.push({ label: 'Core recovery time constant', value: `${summary.recoveryTimeConstantS.toFixed(0)} s` })
+  if (summary.recoveryTimeConstantS != null) facts.push({ label: 'Core recovery time', value: `${summary.recoveryTimeConstantS.toFixed(0)} s` })
   const sustained = pulls.filter(p => p.kind === 'sustained').length
   if (sustained > 0) facts.push({ label: 'Sustained pulls (long stretches at high boost)', value: String(sustained) })
 

@@ -46,7 +46,7 @@ describe('ReportVerdict', () => {
     // 40 → 49 °C over six pulls; 1 − 313.15/322.15 = 2.794 % of 110 kW = 3.07 kW.
     expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('Over six pulls the charge air climbed 9.0 K from the first to the last pull, and the hottest pull made about 2.8 % (about 3.1 kW) less power than the coolest.')
     expect(wrapper.findAll('[data-testid="verdict-consider"] li').map(li => li.text())).toEqual([
-      'Give the car more time between hard runs; the charge air recovers as the core cools.',
+      'Give the car more time between hard pulls; the charge air recovers as the core cools.',
     ])
     const facts = Object.fromEntries(wrapper.findAll('[data-testid="verdict-facts"] > div').map(div => [div.find('dt').text(), div.find('dd').text()]))
     expect(facts).toMatchObject({
@@ -55,7 +55,7 @@ describe('ReportVerdict', () => {
       'Soak per pull': '1.80 K per pull (fit R² 0.98)',
       'Mean temperature over ambient': '14.5 K',
       'Most power lost vs coolest pull': '2.8 %',
-      'Core recovery time constant': '80 s',
+      'Core recovery time': '80 s',
     })
   })
 
