@@ -14,7 +14,7 @@ const optionalNumber = (field: string, key: ConditionKey) => {
 }
 
 const fields = z.object({
-  vehicleId: z.coerce.number({ message: 'vehicleId: choose the car this log belongs to' }).int().positive('vehicleId: choose the car this log belongs to'),
+  vehicleId: z.coerce.number({ message: 'choose the car this log belongs to' }).int().positive('choose the car this log belongs to'),
   mapping: z.string().max(20_000).optional(),
   ambientTempC: optionalNumber('ambientTempC', 'ambientTempC'),
   altitudeM: optionalNumber('altitudeM', 'altitudeM'),

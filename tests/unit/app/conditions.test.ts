@@ -2,10 +2,10 @@ import { describe, expect, it } from 'vitest'
 import { conditionInBounds, recordedOnProblem } from '../../../shared/utils/conditions'
 import { parseMappingInput } from '../../../server/analysis'
 
-describe('the day of the runs', () => {
+describe('the day of the pulls', () => {
   const now = new Date('2026-12-02T08:00:00Z')
   it.each(['9999-99-99', '2026-02-30', '2026-13-01', '1989-12-31', '2026-12-04', '2026-7-14', ''])('refuses %j', (text) => {
-    expect(recordedOnProblem(text, now)).toMatch(/day of the runs/)
+    expect(recordedOnProblem(text, now)).toMatch(/day of the pulls/)
   })
   it.each(['1990-01-01', '2024-02-29', '2026-12-02', '2026-12-03'])('takes %s', (text) => {
     expect(recordedOnProblem(text, now)).toBeNull()
