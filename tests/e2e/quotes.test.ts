@@ -44,7 +44,7 @@ describe('a quote from the fabricator to the paid deposit', () => {
       quoteId = Number(new URL(page.url()).pathname.split('/').pop())
       await expect(page.getByTestId('quote-status').textContent()).resolves.toBe('Draft')
       await page.getByTestId('quote-send').click()
-      await page.getByText('Sent: the customer has the quote by e-mail').waitFor()
+      await page.getByText('Sent: the quote is marked sent and its e-mail to the customer').waitFor()
       await expect(page.getByTestId('quote-status').textContent()).resolves.toBe('Sent')
       await screenshot(page, 'quotes-desktop-fabricator-sent')
       expect(one<{ n: number }>('select count(*) n from outbox where kind = \'quote\' and subject like ?', `%${quoteNumber}%`).n).toBe(1)
