@@ -138,7 +138,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
       meaning: 'Heat soak from pull to pull shows over several hard pulls in a row; this log has none, so only the drive as a whole is judged.',
       consider: [
         'Record a new log with four to six pulls on a dyno or closed course, with short gaps between them.',
-        'If the pulls are in this log, a tuner can set the full-load rule by hand or mark them on the chart.',
+        'If the pulls are in this log, a tuner can set the full-load rule by hand in the Full-load rule card, or zoom the chart to a pull and count that window as a pull.',
       ],
       facts,
       assumptions,

@@ -279,14 +279,14 @@ export function analyseLog(input: LogChannels | ImportedLog, options: AnalyseOpt
     sustained: rule?.sustained ?? true,
   })
   if (!detection.loadChannel && detection.rule.mode !== 'boost') {
-    warnings.push({ code: 'NO_LOAD_CHANNEL', message: 'The log has neither an accelerator pedal nor a throttle channel, nor boost, so pulls cannot be found. Map one, or add the pulls by hand (start and end times).' })
+    warnings.push({ code: 'NO_LOAD_CHANNEL', message: 'The log has neither an accelerator pedal nor a throttle channel, nor boost, so pulls cannot be found. Upload the log again with one of them chosen in the column form, or zoom the chart to each pull and choose "Count this window as a pull".' })
   }
   else if (detection.windows.length === 0 && !(edits?.add?.length)) {
     const top = Number.isFinite(detection.maxLoadPct) ? `${detection.maxLoadPct.toFixed(1)} %` : '–'
     warnings.push({
       code: 'NO_PULLS',
       message: `No pulls found with the full-load rule (${detection.rule.description}); the ${detection.loadChannel ?? 'load'} reached at most ${top}, and a pull needs it held for ${options.pullMinDurationS ?? 3} s. `
-        + 'Set the rule by hand if the car logs full load differently, or mark the pulls on the chart.',
+        + 'If the car logs full load differently, set the rule by hand in the Full-load rule card, or zoom the chart to each pull and choose "Count this window as a pull".',
     })
   }
   const windows = applyPullEdits(t, detection.windows, edits)
