@@ -2,9 +2,9 @@
 // One list serves the "What the numbers mean" page and the short hints beside the figures, so the
 // page and the hints cannot drift apart.
 
-export type NumberTermId =
-  | 'effectiveness' | 'over-ambient' | 'density-ratio' | 'standard-air' | 'left-out' | 'fit-r2'
-  | 'recovery-time' | 'confidence' | 'soak-per-pull' | 'sustained-pull' | 'clipped'
+export type NumberTermId
+  = | 'effectiveness' | 'over-ambient' | 'density-ratio' | 'standard-air' | 'left-out' | 'fit-r2'
+    | 'recovery-time' | 'confidence' | 'soak-per-pull' | 'sustained-pull' | 'clipped'
 
 export interface NumberTerm {
   id: NumberTermId
