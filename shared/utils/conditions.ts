@@ -39,10 +39,12 @@ export function conditionInBounds(key: ConditionKey, value: number): boolean {
 /** "The barometric pressure must be between 50 and 110 kPa." */
 export function conditionBoundMessage(key: ConditionKey): string {
   const bound = CONDITION_BOUNDS[key]
-  return `The ${bound.label} must be between ${bound.min} and ${bound.max} ${bound.unit}`
+  // A typographic minus (−40), as printed everywhere else on screen.
+  const n = (v: number) => String(v).replace('-', '−')
+  return `The ${bound.label} must be between ${n(bound.min)} and ${n(bound.max)} ${bound.unit}`
 }
 
-// The day of the runs: a real calendar day, not before 1990 (no engine logger wrote a file this
+// The day of the pulls: a real calendar day, not before 1990 (no engine logger wrote a file this
 // tool can read before then) and at most a day ahead (time zones), never further in the future.
 export const RECORDED_ON_EARLIEST = '1990-01-01'
 

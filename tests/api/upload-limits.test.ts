@@ -131,7 +131,7 @@ describe('fixed values in a mapping', () => {
   it.each([
     ['a barometric pressure of 1e308 kPa', { baro: { value: 1e308, unit: 'kPa' } }, /barometric pressure/i],
     ['a barometric pressure of 30 kPa', { baro: { value: 30, unit: 'kPa' } }, /50 and 110 kPa/],
-    ['an ambient temperature of 90 °C', { ambientTemp: { value: 90, unit: 'degC' } }, /-40 and 60 °C/],
+    ['an ambient temperature of 90 °C', { ambientTemp: { value: 90, unit: 'degC' } }, /−40 and 60 °C/],
     ['a humidity of 140 %', { humidity: { value: 140, unit: '%' } }, /0 and 100 %/],
   ])('refuses %s with the bounds the form uses, and stores nothing', async (_label, mapping, message) => {
     const before = uploadsFootprint()

@@ -22,7 +22,7 @@ describe('one set of bounds for conditions and fixed mapping values', () => {
   it('lets the engine\'s mapping parser refuse a fixed value out of bounds, in any unit', () => {
     expect(() => parseMappingInput({ baro: { value: 1e308, unit: 'kPa' } })).toThrow(/50 and 110 kPa/)
     expect(() => parseMappingInput({ baro: { value: 29.9, unit: 'psi' } })).toThrow(/barometric/)
-    expect(() => parseMappingInput({ ambientTemp: { value: 150, unit: 'degF' } })).toThrow(/-40 and 60 °C/)
+    expect(() => parseMappingInput({ ambientTemp: { value: 150, unit: 'degF' } })).toThrow(/−40 and 60 °C/)
     expect(parseMappingInput({ baro: { value: 14.5, unit: 'psi' } }).baro).toEqual({ column: undefined, unit: 'psi', value: 14.5 })
     expect(parseMappingInput({ ambientTemp: { value: 300, unit: 'K' } }).ambientTemp?.value).toBe(300)
   })
