@@ -33,7 +33,7 @@ export const VERDICT_THRESHOLDS = {
   goodLossPct: 1.5,
   /** Above this the soak is judged heavy, %. */
   poorLossPct: 4,
-  /** Charge air this far above outside air on average is a lot for a working intercooler, K. */
+  /** Charge air this far above ambient on average is a lot for a working intercooler, K. */
   highDeltaK: 25,
   /** Effectiveness below this is low for an air-to-air core at full load. */
   lowEffectiveness: 0.6,
@@ -58,7 +58,7 @@ const REASON_PLAIN: Record<string, string> = {
   'sensor-dropout': 'the temperature sensor gave no reading',
   'temp-spike': 'the charge temperature jumped with no change in boost to explain it',
   'temp-step': 'the charge temperature jumped with no change in boost to explain it',
-  'below-ambient': 'the charge temperature read colder than the outside air',
+  'below-ambient': 'the charge temperature read colder than the ambient temperature',
   'clipped': 'a sensor sat at the end of its range',
 }
 
@@ -68,7 +68,7 @@ export function driveWords(analysis: AnalysisResult, t: TemperatureUnit): string
   if (!drive || !drive.deltaOverAmbientK) return null
   const d = drive.deltaOverAmbientK
   const moving = analysis.driveDetail?.basis === 'running' ? 'While the engine ran' : 'While moving'
-  const parts = [`${moving}, the charge air sat ${formatTemperatureDifference(d.median, t)} above the outside air most of the time (${formatTemperatureDifference(d.p95, t)} or less for 95 % of it, ${formatTemperatureDifference(d.max, t)} at most).`]
+  const parts = [`${moving}, the charge air sat ${formatTemperatureDifference(d.median, t)} above the ambient temperature most of the time (${formatTemperatureDifference(d.p95, t)} or less for 95 % of it, ${formatTemperatureDifference(d.max, t)} at most).`]
   if (drive.deltaOverAmbientUnderBoostK) parts.push(`Under boost (${minutes(drive.boostedS)} of the drive) it sat ${formatTemperatureDifference(drive.deltaOverAmbientUnderBoostK.median, t)} above.`)
   const events = drive.soakEvents
   if (events.length > 0) {
@@ -87,7 +87,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
   const { summary, pulls } = analysis
   const t = units.temperature
   const normalised = summary.lossNormalisation ? ` To compare pulls fairly, ${summary.lossNormalisation.note.charAt(0).toLowerCase()}${summary.lossNormalisation.note.slice(1)}` : ''
-  const assumptions = `These figures assume an air-limited engine at the same boost: power is taken to follow charge-air density (hotter air is thinner). That is an upper bound — engine management often makes up part of it.${normalised} ${summary.ambientSource === 'entered' ? 'The outside air temperature was entered by hand, not logged.' : ''}`.trim()
+  const assumptions = `These figures assume an air-limited engine at the same boost: power is taken to follow charge-air density (hotter air is thinner). That is an upper bound — engine management often makes up part of it.${normalised} ${summary.ambientSource === 'entered' ? 'The ambient temperature was entered by hand, not logged.' : ''}`.trim()
   const drive = driveWords(analysis, t)
   const found = summary.foundPullCount ?? summary.pullCount
   const leftOut = summary.leftOutPulls ?? []
@@ -100,7 +100,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
     { label: 'Pulls analysed', value: String(summary.pullCount) },
     { label: 'Charge-air rise, first to last pull', value: formatTemperatureDifference(summary.chargeTempRiseK, t) },
     { label: 'Soak per pull', value: summary.soakIndexKPerPull == null ? '—' : `${formatTemperatureDifference(summary.soakIndexKPerPull, t, 2)} per pull${summary.soakFitR2 == null ? '' : ` (fit R² ${summary.soakFitR2.toFixed(2)})`}` },
-    { label: 'Mean rise over outside air', value: formatTemperatureDifference(summary.meanDeltaOverAmbientK, t) },
+    { label: 'Mean temperature over ambient', value: formatTemperatureDifference(summary.meanDeltaOverAmbientK, t) },
     { label: 'Full-load rule', value: summary.fullLoadRule ? `${summary.fullLoadRule.description}${summary.fullLoadRule.source === 'by hand' ? '' : ' (chosen automatically)'}` : '—' },
     ...(summary.measuredPullCount || summary.estimatedPullCount
       ? [
@@ -110,7 +110,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
       : [{ label: 'Mean effectiveness', value: summary.meanEffectiveness == null ? '—' : `${(summary.meanEffectiveness * 100).toFixed(0)} %${summary.effectivenessSource === 'estimated' ? ' (estimated)' : ''}` }]),
     { label: 'Most power lost vs coolest pull', value: summary.maxPowerLossVsCoolestPct == null ? '—' : pct(summary.maxPowerLossVsCoolestPct) },
   ]
-  if (summary.recoveryTimeConstantS != null) facts.push({ label: 'Core recovery time constant', value: `${summary.recoveryTimeConstantS.toFixed(0)} s` })
+  if (summary.recoveryTimeConstantS != null) facts.push({ label: 'Core recovery time', value: `${summary.recoveryTimeConstantS.toFixed(0)} s` })
   const sustained = pulls.filter(p => p.kind === 'sustained').length
   if (sustained > 0) facts.push({ label: 'Sustained pulls (long stretches at high boost)', value: String(sustained) })
 
@@ -138,7 +138,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
       meaning: 'Heat soak from pull to pull shows over several hard pulls in a row; this log has none, so only the drive as a whole is judged.',
       consider: [
         'Record a new log with four to six pulls on a dyno or closed course, with short gaps between them.',
-        'If the pulls are in this log, a tuner can set the full-load rule by hand or mark them on the chart.',
+        'If the pulls are in this log, a tuner can set the full-load rule by hand in the Full-load rule card, or zoom the chart to a pull and count that window as a pull.',
       ],
       facts,
       assumptions,
@@ -158,7 +158,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
     return {
       level: 'unknown',
       headline: 'One pull: not enough to judge heat soak from pull to pull',
-      summary: `In the one pull found, the charge air sat ${formatTemperatureDifference(single?.meanDeltaOverAmbientK ?? delta, t)} above the outside air.`,
+      summary: `In the one pull found, the charge air sat ${formatTemperatureDifference(single?.meanDeltaOverAmbientK ?? delta, t)} above the ambient temperature.`,
       meaning: 'Heat soak is the climb from pull to pull; it takes at least two pulls, better four to six, to see it.',
       consider: ['Record several pulls in a row on a dyno or closed course and upload that log.'],
       facts,

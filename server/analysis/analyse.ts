@@ -279,14 +279,14 @@ export function analyseLog(input: LogChannels | ImportedLog, options: AnalyseOpt
     sustained: rule?.sustained ?? true,
   })
   if (!detection.loadChannel && detection.rule.mode !== 'boost') {
-    warnings.push({ code: 'NO_LOAD_CHANNEL', message: 'The log has neither an accelerator pedal nor a throttle channel, nor boost, so pulls cannot be found. Map one, or add the pulls by hand (start and end times).' })
+    warnings.push({ code: 'NO_LOAD_CHANNEL', message: 'The log has neither an accelerator pedal nor a throttle channel, nor boost, so pulls cannot be found. Upload the log again with one of them chosen in the column form, or zoom the chart to each pull and choose "Count this window as a pull".' })
   }
   else if (detection.windows.length === 0 && !(edits?.add?.length)) {
     const top = Number.isFinite(detection.maxLoadPct) ? `${detection.maxLoadPct.toFixed(1)} %` : '–'
     warnings.push({
       code: 'NO_PULLS',
       message: `No pulls found with the full-load rule (${detection.rule.description}); the ${detection.loadChannel ?? 'load'} reached at most ${top}, and a pull needs it held for ${options.pullMinDurationS ?? 3} s. `
-        + 'Set the rule by hand if the car logs full load differently, or mark the pulls on the chart.',
+        + 'If the car logs full load differently, set the rule by hand in the Full-load rule card, or zoom the chart to each pull and choose "Count this window as a pull".',
     })
   }
   const windows = applyPullEdits(t, detection.windows, edits)
@@ -468,7 +468,7 @@ export function analyseLog(input: LogChannels | ImportedLog, options: AnalyseOpt
     // Reference sheet §13, last bullet: the estimate ignores the cooler's pressure drop, inlet
     // restriction and under-bonnet inlet heating; a 10 kPa drop at 220 kPa alone adds 6–7 K to the
     // real compressor outlet temperature and about 0.01 to effectiveness (COMPUTED there).
-    warnings.push({ code: 'EFFECTIVENESS_ESTIMATED', message: `No pre-cooler temperature in the log: the compressor outlet temperature was estimated from the pressure ratio with an isentropic efficiency of ${efficiency.toFixed(2)}, so effectiveness is an estimate. It reads low: the estimate leaves out the intercooler's pressure drop and the heating of the air before the turbo, so the real compressor outlet is hotter — a 10 kPa drop at 220 kPa alone adds about 6–7 K, or about 0.01 of effectiveness, and under-bonnet inlet heating adds more; read it as roughly 0.01–0.05 low.` })
+    warnings.push({ code: 'EFFECTIVENESS_ESTIMATED', message: `No pre-cooler temperature in the log: the pre-cooler temperature was estimated from the pressure ratio with an isentropic efficiency of ${efficiency.toFixed(2)}, so effectiveness is an estimate. It reads low: the estimate leaves out the intercooler's pressure drop and the heating of the air before the turbo, so the real pre-cooler temperature is higher — a 10 kPa drop at 220 kPa alone adds about 6–7 K, or about 0.01 of effectiveness, and under-bonnet inlet heating adds more; read it as roughly 0.01–0.05 low.` })
   }
   if (baroSource === 'isa' && kept.some(p => p.preSource === 'estimated')) {
     warnings.push({ code: 'BARO_FROM_ISA', message: `No barometric pressure in the log or entered: ISA pressure at ${options.altitudeM ?? 0} m (${(fixedBaroPa / 1000).toFixed(2)} kPa) was used for the pressure ratio.` })

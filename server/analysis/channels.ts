@@ -78,8 +78,8 @@ export const CHANNELS: Readonly<Record<ValueChannelId, ChannelSpec>> = {
   chargeTemp: { id: 'chargeTemp', field: 'chargeTempK', quantity: 'temperature', siUnit: 'K', label: 'Charge air temperature', plausibleMin: 203.15, plausibleMax: 523.15 },
   preCoolerTemp: { id: 'preCoolerTemp', field: 'preCoolerTempK', quantity: 'temperature', siUnit: 'K', label: 'Pre-cooler temperature', plausibleMin: 203.15, plausibleMax: 573.15 },
   ambientTemp: { id: 'ambientTemp', field: 'ambientTempK', quantity: 'temperature', siUnit: 'K', label: 'Ambient temperature', plausibleMin: 213.15, plausibleMax: 343.15 },
-  speed: { id: 'speed', field: 'speedMps', quantity: 'speed', siUnit: 'm/s', label: 'Vehicle speed', plausibleMin: 0, plausibleMax: 150 },
-  massAirFlow: { id: 'massAirFlow', field: 'massAirFlowKgPerS', quantity: 'massFlow', siUnit: 'kg/s', label: 'Mass air flow', plausibleMin: 0, plausibleMax: 5 },
+  speed: { id: 'speed', field: 'speedMps', quantity: 'speed', siUnit: 'm/s', label: 'Road speed', plausibleMin: 0, plausibleMax: 150 },
+  massAirFlow: { id: 'massAirFlow', field: 'massAirFlowKgPerS', quantity: 'massFlow', siUnit: 'kg/s', label: 'Air mass flow', plausibleMin: 0, plausibleMax: 5 },
   humidity: { id: 'humidity', field: 'humidityPct', quantity: 'percent', siUnit: '%', label: 'Relative humidity', plausibleMin: 0, plausibleMax: 100 },
   engineLoad: { id: 'engineLoad', field: 'engineLoadPct', quantity: 'percent', siUnit: '%', label: 'Calculated engine load', plausibleMin: -5, plausibleMax: 105 },
 }

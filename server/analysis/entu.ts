@@ -245,7 +245,7 @@ export function predictCore(input: PredictCoreInput): CorePrediction {
     ua = ref.ua * (input.faceAreaM2 / ref.faceAreaM2) * (input.depthM / ref.depthM)
     assumptions.push(
       'UA scaled from a calibrated core by face area × depth (model assumption: same fin/tube geometry and density).',
-      'Heat-transfer coefficients taken as in the calibration run; in reality they change with air speed through the core.',
+      'Heat-transfer coefficients taken as in the calibration; in reality they change with air speed through the core.',
     )
   }
   else {

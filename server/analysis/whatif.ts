@@ -71,7 +71,7 @@ export function whatIfAmbient(pulls: readonly WhatIfPullInput[], ambientTempC: n
   const max = (values: number[]) => values.length ? Math.max(...values) : null
   return {
     ambientTempC,
-    basis: 'Same boost, same compressor behaviour and the intercooler effectiveness measured in this log; compressor outlet temperature scales with the inlet temperature. Power follows charge density (air-limited engine): an upper bound. On a hotter day the core itself runs warmer, so real charge temperatures may be a little higher still.',
+    basis: 'Same boost, same compressor behaviour and the intercooler effectiveness measured in this log; pre-cooler temperature scales with the temperature of the air the turbo draws in. Power follows charge density (air-limited engine): an upper bound. On a hotter day the core itself runs warmer, so real charge temperatures may be a little higher still.',
     pulls: result,
     summary: {
       peakChargeTempC: max(result.map(p => p.chargeTempC)),

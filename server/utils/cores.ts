@@ -83,7 +83,7 @@ export async function readLabelledBody<S extends z.ZodType>(event: H3Event, sche
     body = await readBody(event)
   }
   catch {
-    badRequest('The request body is not valid JSON. Send a JSON object.')
+    badRequest('The form did not arrive in a shape the server can read. Reload the page and try again.')
   }
   const result = schema.safeParse(body ?? {})
   if (!result.success) {

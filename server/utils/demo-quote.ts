@@ -43,7 +43,7 @@ export async function seedDemoQuote(db: Db, ids: { workshopId: number, fabricato
       depositCents: totals.depositCents,
       validUntil: addDaysUtc(today, workshop.quoteValidityDays),
       terms: workshop.quoteTerms || 'Work is booked in once the deposit is paid. The balance is due when the car is collected. Parts ordered for this job are not returnable.',
-      notes: 'Customer reports the power fading on the third hard run; the hot-day log agrees.',
+      notes: 'Customer reports the power fading on the third hard pull; the hot-day log agrees.',
       createdById: ids.fabricatorId,
     }).returning().get()
     writeQuoteLines(tx, row.id, lines)

@@ -5,6 +5,7 @@ import type { Role } from '#shared/utils/roles'
 import type { Actor } from '#shared/utils/abilities'
 
 // The demo scenario is invented: workshops, people and cars are our own.
+// Registrations use a middle dot (`KRP·0421`), a form no country issues, so a demo plate is never a real car's.
 export const DEMO_PASSWORD = 'densitas-demo'
 
 interface DemoUser { email: string, name: string, role: Role }
@@ -45,10 +46,10 @@ export async function seedDemoIfEmpty(db: Db) {
       { workshopId: harbourside.id, name: 'Harbourside tube-and-fin front-mount 700', kind: 'front-mount', faceWidthMm: 700, faceHeightMm: 300, depthMm: 80, priceCents: 72_000, notes: '' },
     ]).run()
 
-    const hatchback = tx.insert(tables.vehicles).values({ workshopId: kestrel.id, ownerId: k['driver@kestrel.test']!.id, description: '2.0 L four-cylinder turbo-diesel hatchback', registration: 'KR 21 DSL', displacementL: 2.0, cylinders: 4, fuel: 'diesel', ratedPowerKw: 110, fittedCoreId: stock.id, notes: 'Customer reports power fading on the third hard run up the hill.' }).returning().get()
+    const hatchback = tx.insert(tables.vehicles).values({ workshopId: kestrel.id, ownerId: k['driver@kestrel.test']!.id, description: '2.0 L four-cylinder turbo-diesel hatchback', registration: 'KRP·0421', displacementL: 2.0, cylinders: 4, fuel: 'diesel', ratedPowerKw: 110, fittedCoreId: stock.id, notes: 'Customer reports power fading on the third hard pull up the hill.' }).returning().get()
     tx.insert(tables.vehicles).values([
-      { workshopId: kestrel.id, ownerId: k['driver2@kestrel.test']!.id, description: '1.8 L four-cylinder turbo-petrol estate', registration: 'KR 19 PTL', displacementL: 1.8, cylinders: 4, fuel: 'petrol', ratedPowerKw: 132, notes: '' },
-      { workshopId: harbourside.id, ownerId: h['driver@harbourside.test']!.id, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HB 20 TOW', displacementL: 3.0, cylinders: 6, fuel: 'diesel', ratedPowerKw: 190, notes: 'Tows a boat trailer up the slipway.' },
+      { workshopId: kestrel.id, ownerId: k['driver2@kestrel.test']!.id, description: '1.8 L four-cylinder turbo-petrol estate', registration: 'KRP·0419', displacementL: 1.8, cylinders: 4, fuel: 'petrol', ratedPowerKw: 132, notes: '' },
+      { workshopId: harbourside.id, ownerId: h['driver@harbourside.test']!.id, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HBF·0420', displacementL: 3.0, cylinders: 6, fuel: 'diesel', ratedPowerKw: 190, notes: 'Tows a boat trailer up the slipway.' },
     ]).run()
     return { kestrel, tuner: k['tuner@kestrel.test']!, fabricator: k['fab@kestrel.test']!, hatchback, stock, frontMount }
   })

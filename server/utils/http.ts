@@ -1,4 +1,5 @@
 import type { H3Event } from 'h3'
+import { fieldPathLabel } from '#shared/utils/fieldLabels'
 import type { z } from 'zod'
 
 // One error vocabulary for the API: every message says what was wrong and what to do.
@@ -18,15 +19,18 @@ export function badRequest(message: string, data?: unknown): never {
 export function describeIssues(error: z.ZodError): string {
   return error.issues
     .map((issue) => {
-      const field = issue.path.join('.')
-      return field ? `${field}: ${issue.message}` : issue.message
+      // Plain field names, never the request's own keys (`vehicleId`): the message is read by a person.
+      // A message that already names its field ("enter the engine size in litres") needs no prefix.
+      const field = fieldPathLabel(issue.path)
+      if (!field || issue.message.toLowerCase().includes(field.toLowerCase())) return issue.message
+      return `${field.charAt(0).toUpperCase()}${field.slice(1)}: ${issue.message}`
     })
     .join('; ')
 }
 
 function validated<T>(result: z.ZodSafeParseResult<T>, where: string): T {
   if (!result.success) {
-    badRequest(`The ${where} is not valid — ${describeIssues(result.error)}. Correct it and try again.`, { issues: result.error.issues })
+    badRequest(`Please check the ${where === 'request' ? 'form' : where} — ${describeIssues(result.error)}. Correct it and try again.`, { issues: result.error.issues })
   }
   return result.data
 }
@@ -37,7 +41,7 @@ export async function readBodyWith<S extends z.ZodType>(event: H3Event, schema: 
     body = await readBody(event)
   }
   catch {
-    badRequest('The request body is not valid JSON. Send a JSON object.')
+    badRequest('The form did not arrive in a shape the server can read. Reload the page and try again.')
   }
   return validated(schema.safeParse(body ?? {}), 'request')
 }

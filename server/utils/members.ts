@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import type { Actor } from '#shared/utils/abilities'
 
 export function requireOwner(actor: Actor) {
-  if (!canManageMembers(actor)) forbidden('Only the workshop owner manages members and invitations.')
+  if (!canManageMembers(actor)) forbidden('Only the workshop owner manages people and invitations.')
 }
 
 export function findMember(actor: Actor, id: number) {

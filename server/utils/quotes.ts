@@ -67,7 +67,7 @@ export async function readQuoteBody<S extends z.ZodType>(event: H3Event, schema:
     body = await readBody(event)
   }
   catch {
-    badRequest('The request body is not valid JSON. Send a JSON object.')
+    badRequest('The form did not arrive in a shape the server can read. Reload the page and try again.')
   }
   const result = schema.safeParse(body ?? {})
   if (!result.success) badRequest(`The quote is not valid — ${plainIssues(result.error)}. Correct it and try again.`, { issues: result.error.issues })

@@ -38,15 +38,15 @@ export function visibleVehicles(actor: Actor): SQL {
 
 export function findVisibleVehicle(actor: Actor, id: number) {
   const vehicle = useDb().select().from(tables.vehicles).where(and(eq(tables.vehicles.id, id), visibleVehicles(actor))).get()
-  if (!vehicle) notFound('Vehicle')
+  if (!vehicle) notFound('Car')
   return vehicle
 }
 
 // A car belongs to a customer account of the same workshop.
 export function assertDriverOfWorkshop(actor: Actor, ownerId: number) {
   const owner = useDb().select().from(tables.users).where(and(eq(tables.users.id, ownerId), eq(tables.users.workshopId, actor.workshopId))).get()
-  if (!owner) badRequest('ownerId: no customer with that id in your workshop. Pick the customer from the list, or invite them first.')
-  if (!isCustomer(owner)) badRequest('ownerId: a car belongs to a customer (driver) account. Pick a customer, not a staff member.')
+  if (!owner) badRequest('Customer: that customer is not in your workshop. Pick the customer from the list, or invite them first.')
+  if (!isCustomer(owner)) badRequest('Customer: a car belongs to a customer. Pick a customer, not one of the workshop\'s staff.')
 }
 
 // The core catalogue is staff-only, so only staff say which core is fitted. A retired core is not
@@ -56,6 +56,6 @@ export function assertCoreOfWorkshop(actor: Actor, coreId: number | null | undef
   if (!canSetFittedCore(actor)) forbidden('Only the workshop sets which intercooler core is fitted. Ask a tuner to record it.')
   if (coreId === null) return
   const core = useDb().select({ id: tables.cores.id, retiredAt: tables.cores.retiredAt }).from(tables.cores).where(and(eq(tables.cores.id, coreId), eq(tables.cores.workshopId, actor.workshopId))).get()
-  if (!core) badRequest('fittedCoreId: no core with that id in your catalogue. Pick one from the core catalogue or leave it empty.')
+  if (!core) badRequest('Fitted core: that core is not in your catalogue. Pick one from the core catalogue or leave it empty.')
   if (core.retiredAt && coreId !== currentCoreId) badRequest('Fitted core: that core is retired from the catalogue. Pick a current core, or bring it back in the catalogue first.')
 }

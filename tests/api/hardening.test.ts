@@ -124,7 +124,7 @@ describe('a patch writes only the keys sent', () => {
 
   it('PATCH /api/vehicles/:id with one field keeps every other column', async () => {
     const tuner = await signIn('tuner@kestrel.test')
-    const car = row('select * from vehicles where registration = ?', 'KR 21 DSL')
+    const car = row('select * from vehicles where registration = ?', 'KRP·0421')
     expect(car.notes).not.toBe('')
     expect(car.fitted_core_id).not.toBeNull()
     const reply = await tuner.patch(`/api/vehicles/${car.id}`, { cylinders: 5 })
@@ -199,7 +199,7 @@ describe('cross-site requests', () => {
   it('refuses a multipart upload from another site', async () => {
     const tuner = await signIn('tuner@kestrel.test')
     const before = logFootprint()
-    const car = (row('select id from vehicles where registration = ?', 'KR 21 DSL') as { id: number }).id
+    const car = (row('select id from vehicles where registration = ?', 'KRP·0421') as { id: number }).id
     const form = new FormData()
     form.append('vehicleId', String(car))
     form.append('file', new Blob(['time,iat\n0,20\n1,21\n']), 'x.csv')
@@ -298,7 +298,7 @@ describe('body and field limits', () => {
 
   it('limits the length of names and notes', async () => {
     const tuner = await signIn('tuner@kestrel.test')
-    const car = (row('select id from vehicles where registration = ?', 'KR 21 DSL') as { id: number }).id
+    const car = (row('select id from vehicles where registration = ?', 'KRP·0421') as { id: number }).id
     const reply = await tuner.patch<{ message: string }>(`/api/vehicles/${car}`, { notes: 'x'.repeat(2001) })
     expect(reply.status).toBe(400)
     expect(reply.body.message).toMatch(/2000 characters/)
@@ -432,7 +432,7 @@ describe('races', () => {
 describe('the fitted core', () => {
   it('lets only staff set a car\'s fitted core', async () => {
     const driver = await signIn('driver@kestrel.test')
-    const car = row('select * from vehicles where registration = ?', 'KR 21 DSL')
+    const car = row('select * from vehicles where registration = ?', 'KRP·0421')
     const core = (row('select id from cores where kind = \'front-mount\' and workshop_id = ?', car.workshop_id) as { id: number }).id
     const patched = await driver.patch<{ message: string }>(`/api/vehicles/${car.id}`, { fittedCoreId: core })
     expect(patched.status).toBe(403)

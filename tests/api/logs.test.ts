@@ -86,8 +86,8 @@ describe('POST /api/logs', () => {
     ['a wrong unit in the mapping', { mapping: JSON.stringify({ chargeTemp: { column: 'Charge air temp (°C)', unit: 'psi' } }) }, demoFile, 422, /psi/],
     ['a mapping that is not JSON', { mapping: '{chargeTemp' }, demoFile, 422, /mapping/i],
     ['the wrong file type', {}, { name: 'log.xlsx', content: demo.csv }, 415, /not a text log/],
-    ['an ambient temperature that is not a number', { ambientTempC: 'warm' }, demoFile, 400, /ambientTempC/],
-    ['an ambient temperature out of range', { ambientTempC: 95 }, demoFile, 400, /between -40 and 60/],
+    ['an ambient temperature that is not a number', { ambientTempC: 'warm' }, demoFile, 400, /the ambient temperature must be a number/],
+    ['an ambient temperature out of range', { ambientTempC: 95 }, demoFile, 400, /between −40 and 60/],
   ]
 
   it.each(badInputs)('answers %s with a 4xx and a message, and leaves nothing behind', async (_label, fields, file, status, message) => {

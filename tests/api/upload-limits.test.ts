@@ -105,7 +105,7 @@ describe('POST /api/logs/detect', () => {
   })
 })
 
-describe('the day of the runs', () => {
+describe('the day of the pulls', () => {
   const day = (offsetDays: number) => new Date(Date.now() + offsetDays * 86_400_000).toISOString().slice(0, 10)
 
   it.each([
@@ -114,7 +114,7 @@ describe('the day of the runs', () => {
     const before = uploadsFootprint()
     const reply = await tuner.upload<{ message: string }>('/api/logs', { vehicleId: carId, recordedOn }, demoFile)
     expect(reply.status).toBe(400)
-    expect(reply.body.message).toMatch(/day of the runs/)
+    expect(reply.body.message).toMatch(/day of the pulls/)
     expect(uploadsFootprint()).toEqual(before)
   })
 
@@ -131,7 +131,7 @@ describe('fixed values in a mapping', () => {
   it.each([
     ['a barometric pressure of 1e308 kPa', { baro: { value: 1e308, unit: 'kPa' } }, /barometric pressure/i],
     ['a barometric pressure of 30 kPa', { baro: { value: 30, unit: 'kPa' } }, /50 and 110 kPa/],
-    ['an outside temperature of 90 °C', { ambientTemp: { value: 90, unit: 'degC' } }, /-40 and 60 °C/],
+    ['an ambient temperature of 90 °C', { ambientTemp: { value: 90, unit: 'degC' } }, /−40 and 60 °C/],
     ['a humidity of 140 %', { humidity: { value: 140, unit: '%' } }, /0 and 100 %/],
   ])('refuses %s with the bounds the form uses, and stores nothing', async (_label, mapping, message) => {
     const before = uploadsFootprint()

@@ -44,7 +44,7 @@ describe('MappingForm', () => {
     expect(wrapper.find('[data-testid="mapping-row-ambientTemp"] [data-testid="confidence-badge"]').text()).toBe('Not found')
   })
 
-  it('asks for the outside temperature when the log has none, and stops asking once a column is chosen', async () => {
+  it('asks for the ambient temperature when the log has none, and stops asking once a column is chosen', async () => {
     const wrapper = await mountSuspended(MappingForm, { props: { showErrors: true } })
     const draft = useUploadDraftStore()
     expect(wrapper.find('[data-testid="ambient-prompt"]').exists()).toBe(true)
@@ -108,10 +108,10 @@ describe('MappingForm', () => {
 
   it('asks for the ambient temperature in words, with the range it accepts', async () => {
     const wrapper = await mountSuspended(MappingForm, { props: { showErrors: true } })
-    expect(wrapper.find('[data-testid="ambient-prompt"]').text()).toBe('This log has no outside air temperature. Enter the temperature outside during the runs — without it the charge air cannot be compared with the air going in.')
+    expect(wrapper.find('[data-testid="ambient-prompt"]').text()).toBe('This log has no ambient temperature. Enter the ambient temperature during the pulls — without it the charge air cannot be compared with the air going in.')
     expect(wrapper.text()).toContain('This log has no outside air temperature. Enter the temperature outside during the runs.')
     await wrapper.find('[data-testid="condition-ambient"]').setValue('75')
-    expect(wrapper.text()).toContain('The outside air temperature must be between -40 and 60 °C.')
+    expect(wrapper.text()).toContain('The ambient temperature must be between −40 and 60 °C.')
     await wrapper.find('[data-testid="condition-ambient"]').setValue('28,5')
     expect(useUploadDraftStore().conditions.ambientTempC).toBe(28.5)
     expect(wrapper.text()).not.toContain('must be between')
@@ -151,7 +151,7 @@ describe('MappingForm with columns the engine did not recognise', () => {
     expect(offer.exists()).toBe(true)
     // chargeTemp is taken already, so only the outside temperature is offered for "Temp B".
     const select = wrapper.find('[data-testid="unrecognised-Temp B (°F)"] select')
-    expect(select.findAll('option').map(o => o.text())).toEqual(['Not used', 'Outside air temperature (in °F)'])
+    expect(select.findAll('option').map(o => o.text())).toEqual(['Not used', 'Ambient temperature (in °F)'])
     await select.setValue('ambientTemp')
     expect(draft.mapping.ambientTemp).toEqual({ column: 'Temp B (°F)', unit: 'degF' })
     expect(wrapper.find('[data-testid="unrecognised-Temp B (°F)"]').exists()).toBe(false)

@@ -47,7 +47,7 @@ describe('VehicleList', () => {
     const wrapper = await mountSuspended(VehicleList, {
       props: {
         showOwner: true,
-        vehicles: [{ id: 1, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HB 20 TOW', fuel: 'diesel', displacementL: 3, cylinders: 6, ratedPowerKw: 190, ownerName: 'Ayla Fenwick', fittedCoreName: null }],
+        vehicles: [{ id: 1, description: '3.0 L six-cylinder turbo-diesel pickup', registration: 'HBF·0420', fuel: 'diesel', displacementL: 3, cylinders: 6, ratedPowerKw: 190, ownerName: 'Ayla Fenwick', fittedCoreName: null }],
       },
     })
     const text = wrapper.text()

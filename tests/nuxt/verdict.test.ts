@@ -53,18 +53,19 @@ describe('ReportVerdict', () => {
       'Pulls analysed': '6',
       'Charge-air rise, first to last pull': '9.0 K',
       'Soak per pull': '1.80 K per pull (fit R² 0.98)',
-      'Mean rise over outside air': '14.5 K',
+      'Mean temperature over ambient': '14.5 K',
       'Most power lost vs coolest pull': '2.8 %',
-      'Core recovery time constant': '80 s',
+      'Core recovery time': '80 s',
     })
   })
 
   it('marks an estimated effectiveness and warns when the core removes little heat', async () => {
     const analysis = analysisWith(1.8)
-    Object.assign(analysis.summary, { meanEffectiveness: 0.55, effectivenessSource: 'estimated', measuredPullCount: 0, meanEffectivenessMeasured: null, estimatedPullCount: 6, meanEffectivenessEstimated: 0.55 })
+    analysis.summary.meanEffectiveness = 0.55
+    analysis.summary.effectivenessSource = 'estimated'
     const wrapper = await mountSuspended(Verdict, { props: { analysis, vehicle } })
-    const facts = Object.fromEntries(wrapper.findAll('[data-testid="verdict-facts"] > div').map(div => [div.find('dt').text(), div.find('dd').text()]))
-    expect(facts['Effectiveness, estimated (6 pulls; reads low)']).toBe('55 %')
+    const facts = wrapper.findAll('[data-testid="verdict-facts"] dd').map(dd => dd.text())
+    expect(facts).toContain('55 % (estimated)')
     expect(wrapper.find('[data-testid="verdict-consider"]').text()).toContain('The intercooler removes only about 55 % of the heat it could: check for a blocked or damaged core and for air going around it.')
   })
 
@@ -72,7 +73,7 @@ describe('ReportVerdict', () => {
     const analysis = analysisWith(1.8)
     analysis.summary.ambientSource = 'entered'
     const wrapper = await mountSuspended(Verdict, { props: { analysis, vehicle } })
-    expect(wrapper.find('[data-testid="verdict-assumptions"]').text()).toMatch(/The outside air temperature was entered by hand, not logged\.$/)
+    expect(wrapper.find('[data-testid="verdict-assumptions"]').text()).toMatch(/The ambient temperature was entered by hand, not logged\.$/)
     const logged = await mountSuspended(Verdict, { props: { analysis: analysisWith(1.8), vehicle } })
     expect(logged.find('[data-testid="verdict-assumptions"]').text()).not.toContain('entered by hand')
   })
@@ -81,7 +82,7 @@ describe('ReportVerdict', () => {
     const wrapper = await mountSuspended(Verdict, { props: { analysis: analysisWith(1, 1), vehicle } })
     expect(wrapper.find('[data-testid="verdict"]').attributes('data-level')).toBe('unknown')
     expect(wrapper.find('[data-testid="verdict-headline"]').text()).toBe('One pull: not enough to judge heat soak from pull to pull')
-    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('In the one pull found, the charge air sat 10.0 K above the outside air.')
+    expect(wrapper.find('[data-testid="verdict-summary"]').text()).toBe('In the one pull found, the charge air sat 10.0 K above the ambient temperature.')
   })
 
   it('calls heavy soak poor, in the danger tone, and names a bigger core and knock on a petrol car', async () => {

@@ -1,5 +1,5 @@
-// Per-pull bars: how far the charge air sat above the outside air, and how well the intercooler
-// pulled it back towards outside air (effectiveness). Pure and unit-tested.
+// Per-pull bars: how far the charge air sat above the ambient temperature, and how well the intercooler
+// pulled it back towards ambient (effectiveness). Pure and unit-tested.
 import type { EChartsOption } from 'echarts'
 import type { TemperatureUnit } from '~/stores/units'
 import type { PullResult } from '#shared/types/report'
@@ -28,13 +28,13 @@ export function pullBarsOption(input: PullBarsInput): EChartsOption {
     tooltip: { trigger: 'axis', axisPointer: { type: 'shadow' } },
     xAxis: { type: 'category', data: pulls.map(p => pullName(p.index)), axisLine: { lineStyle: { color: CHART_PALETTE.line } } },
     yAxis: [
-      { type: 'value', name: `Above outside air (${diff})`, nameTextStyle: { align: 'left' }, min: 0, splitLine: { lineStyle: { color: CHART_PALETTE.line } } },
+      { type: 'value', name: `Temperature over ambient (${diff})`, nameTextStyle: { align: 'left' }, min: 0, splitLine: { lineStyle: { color: CHART_PALETTE.line } } },
       { type: 'value', name: 'Effectiveness (%)', nameTextStyle: { align: 'right' }, min: 0, max: 100, splitLine: { show: false } },
     ],
     series: [
       {
         type: 'bar',
-        name: `Above outside air (${diff})`,
+        name: `Temperature over ambient (${diff})`,
         yAxisIndex: 0,
         itemStyle: { color: CHART_PALETTE.charge, borderRadius: [3, 3, 0, 0] },
         data: pulls.map(p => round1(temperatureDifferenceIn(p.meanDeltaOverAmbientK, temperature))),

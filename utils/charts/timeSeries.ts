@@ -22,16 +22,16 @@ export interface TimeSeriesInput {
 }
 
 const TEMPERATURE_CHANNELS: Partial<Record<ChannelId, { name: string, color: string }>> = {
-  chargeTemp: { name: 'Charge air', color: CHART_PALETTE.charge },
-  preCoolerTemp: { name: 'Before the intercooler', color: CHART_PALETTE.preCooler },
-  ambientTemp: { name: 'Outside air', color: CHART_PALETTE.ambient },
+  chargeTemp: { name: 'Charge temperature', color: CHART_PALETTE.charge },
+  preCoolerTemp: { name: 'Pre-cooler temperature', color: CHART_PALETTE.preCooler },
+  ambientTemp: { name: 'Ambient temperature', color: CHART_PALETTE.ambient },
 }
 
 const MASK_WORDS: Record<MaskSpan['reason'], string> = {
   'engine-off': 'Engine off',
   'restart-settle': 'Settling after restart',
   'temp-spike': 'Sensor jump',
-  'below-ambient': 'Below outside air',
+  'below-ambient': 'Below ambient',
   'sensor-dropout': 'Sensor gave no reading',
   'temp-step': 'Sensor step',
   'clipped': 'Sensor at its limit',

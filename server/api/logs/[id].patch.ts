@@ -9,10 +9,10 @@ const window = z.object({ startS: z.number().min(0), endS: z.number().min(0) }).
 
 const body = z.object({
   notes: z.string().max(5000).optional(),
-  ambientTempC: nullableNumber('ambientTempC', -40, 60, '°C'),
-  altitudeM: nullableNumber('altitudeM', -500, 6000, 'm'),
-  baroKpa: nullableNumber('baroKpa', 50, 110, 'kPa'),
-  humidityPct: nullableNumber('humidityPct', 0, 100, '%'),
+  ambientTempC: nullableNumber('Ambient temperature', -40, 60, '°C'),
+  altitudeM: nullableNumber('Site altitude', -500, 6000, 'm'),
+  baroKpa: nullableNumber('Barometric pressure', 50, 110, 'kPa'),
+  humidityPct: nullableNumber('Relative humidity', 0, 100, '%'),
   pullEdits: z.object({
     add: z.array(window).max(50).optional(),
     remove: z.array(z.number().int().min(0)).max(200).optional(),

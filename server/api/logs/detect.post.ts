@@ -33,7 +33,7 @@ export default defineEventHandler(async (event) => {
     asHttpError(error)
   }
   if (preview.columns.length > MAX_COLUMNS) {
-    throw createError({ statusCode: 422, message: `This file has ${preview.columns.length} columns; a log can have at most ${MAX_COLUMNS}. Export only the channels you logged for the runs and try again.` })
+    throw createError({ statusCode: 422, message: `This file has ${preview.columns.length} columns; a log can have at most ${MAX_COLUMNS}. Export only the channels you logged for the pulls and try again.` })
   }
   preview.rows = preview.rows.map(row => row.slice(0, MAX_COLUMNS).map(trimCell))
   preview.columns = preview.columns.map(column => ({ ...column, samples: column.samples.map(trimCell) }))

@@ -4,22 +4,23 @@ import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { parseMappingInput, type MappingInput } from '../../analysis'
 
-const optionalNumber = (field: string, key: ConditionKey) => {
-  const { min, max, unit, label } = CONDITION_BOUNDS[key]
-  const range = `${field} (${label}) must be between ${min} and ${max} ${unit}`
+const optionalNumber = (key: ConditionKey) => {
+  const { min, max, label } = CONDITION_BOUNDS[key]
+  // The on-screen name only: the field's own key never reaches the message.
+  const range = conditionBoundMessage(key)
   return z.preprocess(
     value => value === '' || value === undefined ? undefined : value,
-    z.coerce.number({ message: `${field} (${label}) must be a number` }).min(min, range).max(max, range).optional(),
+    z.coerce.number({ message: `the ${label} must be a number` }).min(min, range).max(max, range).optional(),
   )
 }
 
 const fields = z.object({
-  vehicleId: z.coerce.number({ message: 'vehicleId: choose the car this log belongs to' }).int().positive('vehicleId: choose the car this log belongs to'),
+  vehicleId: z.coerce.number({ message: 'choose the car this log belongs to' }).int().positive('choose the car this log belongs to'),
   mapping: z.string().max(20_000).optional(),
-  ambientTempC: optionalNumber('ambientTempC', 'ambientTempC'),
-  altitudeM: optionalNumber('altitudeM', 'altitudeM'),
-  baroKpa: optionalNumber('baroKpa', 'baroKpa'),
-  humidityPct: optionalNumber('humidityPct', 'humidityPct'),
+  ambientTempC: optionalNumber('ambientTempC'),
+  altitudeM: optionalNumber('altitudeM'),
+  baroKpa: optionalNumber('baroKpa'),
+  humidityPct: optionalNumber('humidityPct'),
   profileId: z.coerce.number().int().positive().optional(),
   notes: z.string().max(5000).optional(),
   recordedOn: z.string().max(40).superRefine((text, context) => {
@@ -33,7 +34,7 @@ const fields = z.object({
 
 // Text fields are small (the mapping is the largest, 20 000 characters of up to 4 bytes each).
 const FORM_LIMITS = { fileBytes: LOG_UPLOAD_LIMITS.maxBytes, fieldBytes: 96 * 1024, fields: 16 }
-const TOO_LARGE = `The file is larger than ${LOG_UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB. Trim the log to the session with the hard runs, or export fewer channels, and upload again.`
+const TOO_LARGE = `The file is larger than ${LOG_UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB. Trim the log to the part with the hard pulls, or export fewer channels, and upload again.`
 
 // The body is streamed: fields into memory, the file straight to a temporary file, the byte limit
 // enforced while reading. Import and analysis then run in the worker pool; this request only waits.

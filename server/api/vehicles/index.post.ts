@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
     if (input.ownerId !== undefined && input.ownerId !== actor.id) forbidden('You can add cars to your own account only.')
   }
   else {
-    if (input.ownerId === undefined) badRequest('ownerId: choose the customer who owns this car.')
+    if (input.ownerId === undefined) badRequest('choose the customer whose car this is.')
     assertDriverOfWorkshop(actor, input.ownerId)
     ownerId = input.ownerId
   }

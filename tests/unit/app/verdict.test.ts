@@ -58,7 +58,7 @@ describe('verdictFor', () => {
     expect(v.level).toBe('unknown')
     expect(v.headline).toMatch(/^No pulls found — here is how the charge air did over the drive/)
     // The drive summary takes the place of the pull figures.
-    expect(v.summary).toMatch(/While moving, the charge air sat 9\.0 K above the outside air most of the time \(18\.0 K or less for 95 % of it, 24\.0 K at most\)/)
+    expect(v.summary).toMatch(/While moving, the charge air sat 9\.0 K above the ambient temperature most of the time \(18\.0 K or less for 95 % of it, 24\.0 K at most\)/)
     expect(v.summary).toMatch(/once the charge air heated up while the car was slow or stopped, by up to 11\.0 K\. Once moving again it took about 45 s to come back down/)
     expect(v.consider[0]).toMatch(/dyno or closed course/)
   })
@@ -85,10 +85,10 @@ describe('verdictFor', () => {
   it('needs more than one pull to speak of soak', () => {
     const v = verdictFor(analysisWith(1, 1), diesel)
     expect(v.level).toBe('unknown')
-    expect(v.summary).toMatch(/10\.0 K above the outside air/)
+    expect(v.summary).toMatch(/10\.0 K above the ambient temperature/)
   })
 
-  it('says when the outside temperature was typed in rather than logged', () => {
+  it('says when the ambient temperature was typed in rather than logged', () => {
     const analysis = analysisWith(1.8)
     analysis.summary.ambientSource = 'entered'
     expect(verdictFor(analysis, diesel).assumptions).toMatch(/entered by hand/)

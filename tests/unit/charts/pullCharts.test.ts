@@ -8,7 +8,7 @@ type Bar = { name: string, yAxisIndex: number, data: (number | null)[] }
 describe('pullBarsOption', () => {
   const pulls = analysisWith(2).pulls
 
-  it('draws the rise over outside air and effectiveness per pull', () => {
+  it('draws the temperature over ambient and effectiveness per pull', () => {
     const option = pullBarsOption({ pulls, temperature: 'C' })
     expect((option.xAxis as { data: string[] }).data).toEqual(['Pull 1', 'Pull 2', 'Pull 3', 'Pull 4', 'Pull 5', 'Pull 6'])
     const [delta, effectiveness] = option.series as unknown as Bar[]

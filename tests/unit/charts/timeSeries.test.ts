@@ -11,7 +11,7 @@ describe('timeSeriesOption', () => {
   const base = { data: seriesFixture(), pulls: analysis.pulls, masks: analysis.masks, units: { temperature: 'C', pressure: 'kPa' } as const }
 
   it('puts temperatures on the left axis in °C, converted from the API\'s kelvin', () => {
-    const charge = seriesOf(timeSeriesOption(base)).find(s => s.name === 'Charge air')!
+    const charge = seriesOf(timeSeriesOption(base)).find(s => s.name === 'Charge temperature')!
     expect(charge.yAxisIndex).toBe(0)
     expect(charge.data[0]).toEqual([0, 40])
     expect(charge.data[10]).toEqual([100, 50])
@@ -20,7 +20,7 @@ describe('timeSeriesOption', () => {
   it('follows the display units: °F and psi', () => {
     const option = timeSeriesOption({ ...base, units: { temperature: 'F', pressure: 'psi' } })
     const series = seriesOf(option)
-    expect(series.find(s => s.name === 'Charge air')!.data[0]![1]).toBe(104)
+    expect(series.find(s => s.name === 'Charge temperature')!.data[0]![1]).toBe(104)
     // 200 kPa = 29.01 psi
     expect(series.find(s => s.name === 'Manifold pressure')!.data[0]![1]).toBeCloseTo(29.01, 2)
     expect((option.yAxis as { name: string }[])[0]!.name).toBe('°F')
@@ -57,7 +57,7 @@ describe('timeSeriesOption', () => {
     const data = seriesFixture()
     data.series = data.series.filter(s => s.channel === 'chargeTemp')
     const names = seriesOf(timeSeriesOption({ ...base, data, masks: [] })).map(s => s.name)
-    expect(names).toEqual(['Charge air', 'Pulls'])
+    expect(names).toEqual(['Charge temperature', 'Pulls'])
   })
 
   it('zooms by value to the window it is given, and shows the whole log otherwise', () => {

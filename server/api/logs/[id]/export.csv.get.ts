@@ -12,8 +12,8 @@ export default defineEventHandler(async (event) => {
     csvLine(['Power loss basis', analysis.summary.powerLossBasis]),
     '',
     csvLine([
-      'Pull', 'Start (s)', 'End (s)', 'Mean charge air (°C)', 'Peak charge air (°C)', 'Ambient (°C)', 'Rise over ambient (K)',
-      'Manifold pressure (kPa abs)', 'Pre-cooler (°C)', 'Intercooler effectiveness', 'Effectiveness from', 'Density vs ISA sea level',
+      'Pull', 'Start (s)', 'End (s)', 'Mean charge temperature (°C)', 'Peak charge temperature (°C)', 'Ambient temperature (°C)', 'Temperature over ambient (K)',
+      'Manifold pressure (kPa abs)', 'Pre-cooler temperature (°C)', 'Intercooler effectiveness', 'Effectiveness from', 'Density ratio (× standard air)',
       'Power loss vs coolest pull (%)', 'Power loss vs ambient-temperature charge (%)', 'Power loss vs coolest pull (kW)',
     ]),
     ...analysis.pulls.map(pull => csvLine([

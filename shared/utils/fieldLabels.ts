@@ -1,0 +1,68 @@
+// The on-screen name of each request field, for messages a web user reads: a checked form field
+// must never come back as `vehicleId: …`. One place; fields not listed are humanised from the name.
+
+const FIELD_LABELS: Record<string, string> = {
+  vehicleId: 'car',
+  ownerId: 'customer',
+  ownerName: 'customer\'s name',
+  emailDriver: 'e-mail to the customer',
+  fittedCoreId: 'fitted core',
+  coreId: 'core fitted when the log was made',
+  candidateCoreIds: 'cores to compare',
+  logId: 'log',
+  sizingId: 'sizing',
+  profileId: 'saved column profile',
+  ambientC: 'ambient temperature',
+  ambientTempC: 'ambient temperature',
+  ambientTemp: 'ambient temperature',
+  referenceAmbientC: 'reference ambient',
+  chargeTemp: 'charge temperature',
+  preCoolerTemp: 'pre-cooler temperature',
+  boostKpaAbs: 'boost (kPa abs)',
+  roadSpeedKmh: 'road speed',
+  targetPowerKw: 'target power',
+  ratedPowerKw: 'rated power',
+  displacementL: 'engine size',
+  correctionStandard: 'correction standard',
+  currentPassword: 'current password',
+  depositPercent: 'deposit',
+  labourRateCents: 'labour rate',
+  unitPriceCents: 'price',
+  endTankLayout: 'end tanks',
+  finDensity: 'fin density',
+  finDensityUnit: 'fin density unit',
+  expiresInDays: 'how long the link works',
+  recordedOn: 'day of the pulls',
+  runOn: 'day of the dyno run',
+  startS: 'start time',
+  endS: 'end time',
+  thresholdPct: 'pedal threshold',
+  keepLeftOut: 'keep the pulls left out',
+  pullEdits: 'pull changes',
+  headerSignature: 'column headings',
+  fileName: 'file name',
+  workshopName: 'workshop name',
+  pageSize: 'page size',
+  degC: '°C',
+}
+
+/** "vehicleId" → "car"; an unlisted "someFieldName" → "some field name" (an "Id" ending dropped). */
+export function fieldLabel(name: string): string {
+  if (FIELD_LABELS[name]) return FIELD_LABELS[name]
+  return name
+    .replace(/Ids?$/, '')
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .replace(/_/g, ' ')
+    .toLowerCase()
+    .trim()
+}
+
+/** A checked field's path as words: ["lines", 2, "unitPriceCents"] → "price (line 3)". */
+export function fieldPathLabel(path: readonly PropertyKey[]): string {
+  const names = path.filter((p): p is string => typeof p === 'string')
+  const index = path.find((p): p is number => typeof p === 'number')
+  const last = names.at(-1)
+  if (!last) return index == null ? '' : `item ${index + 1}`
+  const label = fieldLabel(last)
+  return index == null ? label : `${label} (${fieldLabel(names[0] ?? 'item').replace(/s$/, '')} ${index + 1})`
+}
