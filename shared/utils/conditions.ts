@@ -3,7 +3,7 @@
 // The ranges are generous for where a car can be driven (common practice, no source):
 // −40…60 °C ambient, −500…6000 m site altitude, 50…110 kPa barometric pressure.
 
-export interface Bound {
+export interface ConditionBound {
   min: number
   max: number
   /** Unit as shown to a person. */
@@ -17,7 +17,7 @@ export const CONDITION_BOUNDS = {
   altitudeM: { min: -500, max: 6000, unit: 'm', label: 'site altitude' },
   baroKpa: { min: 50, max: 110, unit: 'kPa', label: 'barometric pressure' },
   humidityPct: { min: 0, max: 100, unit: '%', label: 'relative humidity' },
-} as const satisfies Record<string, Bound>
+} as const satisfies Record<string, ConditionBound>
 
 export type ConditionKey = keyof typeof CONDITION_BOUNDS
 

@@ -61,11 +61,10 @@ describe('ReportVerdict', () => {
 
   it('marks an estimated effectiveness and warns when the core removes little heat', async () => {
     const analysis = analysisWith(1.8)
-    analysis.summary.meanEffectiveness = 0.55
-    analysis.summary.effectivenessSource = 'estimated'
+    Object.assign(analysis.summary, { meanEffectiveness: 0.55, effectivenessSource: 'estimated', measuredPullCount: 0, meanEffectivenessMeasured: null, estimatedPullCount: 6, meanEffectivenessEstimated: 0.55 })
     const wrapper = await mountSuspended(Verdict, { props: { analysis, vehicle } })
-    const facts = wrapper.findAll('[data-testid="verdict-facts"] dd').map(dd => dd.text())
-    expect(facts).toContain('55 % (estimated)')
+    const facts = Object.fromEntries(wrapper.findAll('[data-testid="verdict-facts"] > div').map(div => [div.find('dt').text(), div.find('dd').text()]))
+    expect(facts['Effectiveness, estimated (6 pulls; reads low)']).toBe('55 %')
     expect(wrapper.find('[data-testid="verdict-consider"]').text()).toContain('The intercooler removes only about 55 % of the heat it could: check for a blocked or damaged core and for air going around it.')
   })
 

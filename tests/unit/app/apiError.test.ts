@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { apiErrorMessage } from '../../../composables/useApiError'
+import { apiErrorMessage } from '../../../utils/apiError'
 
 describe('apiErrorMessage', () => {
   it('passes on what the server wrote for a person', () => {
