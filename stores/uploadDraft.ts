@@ -121,7 +121,7 @@ export const useUploadDraftStore = defineStore('uploadDraft', () => {
     if (!mapping.value.chargeTemp.column) list.push({ field: 'chargeTemp', message: 'Choose the column with the charge air temperature (after the intercooler, often called intake air temperature).' })
     const ambient = conditions.value.ambientTempC
     if (needsAmbientTemp.value && (ambient === null || !Number.isFinite(ambient))) {
-      list.push({ field: 'ambientTempC', message: 'This log has no outside air temperature. Enter the temperature outside during the runs.' })
+      list.push({ field: 'ambientTempC', message: 'This log has no ambient temperature. Enter the ambient temperature during the pulls.' })
     }
     else if (needsAmbientTemp.value && ambient !== null && !conditionInBounds('ambientTempC', ambient)) {
       list.push({ field: 'ambientTempC', message: `${conditionBoundMessage('ambientTempC')}.` })

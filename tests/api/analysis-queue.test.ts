@@ -44,7 +44,7 @@ describe('when the analysis threads are all busy', () => {
     for (let attempt = 0; attempt < 100 && count() < 2; attempt++) await new Promise(r => setTimeout(r, 200))
     const before = count()
     // Four 20 MB uploads a moment apart, each on a connection of its own with a true Content-Length.
-    const replies = await Promise.all(Array.from({ length: 4 }, (_, i) => new Promise(resolve => setTimeout(resolve, i * 200))
+    const replies = await Promise.all(Array.from({ length: 4 }, (_, i) => new Promise(resolve => setTimeout(resolve, i * 50))
       .then(() => streamUpload({ baseUrl: server.baseUrl, cookie, fields: { vehicleId }, fileName: 'busy.csv', fileBytes: 20 * 1024 * 1024, contentLength: 'true' }))))
     const busy = replies.filter(reply => reply.status === 503)
     const stored = replies.filter(reply => reply.status === 201)

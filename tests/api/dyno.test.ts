@@ -93,7 +93,7 @@ describe('POST /api/vehicles/:id/dyno-runs', () => {
     ['a humidity over 100 %', run({ humidityPct: 150 }), 400, /relative humidity is between 0 and 100/],
     ['a side that is neither', run({ side: 'during' }), 400, /before or after/],
     ['an empty label', run({ label: '' }), 400, /label/],
-    ['a core id that is not a positive number', run({ coreId: 0 }), 400, /coreId/],
+    ['a core id that is not a positive number', run({ coreId: 0 }), 400, /core/i],
   ])('%s: a clear message, nothing stored', async (_name, input, status, message) => {
     const before = runCount()
     const reply = await clients.tuner.post<{ message: string }>(`/api/vehicles/${ids.driverCar}/dyno-runs`, input)

@@ -109,7 +109,7 @@ describe('MappingForm', () => {
   it('asks for the ambient temperature in words, with the range it accepts', async () => {
     const wrapper = await mountSuspended(MappingForm, { props: { showErrors: true } })
     expect(wrapper.find('[data-testid="ambient-prompt"]').text()).toBe('This log has no ambient temperature. Enter the ambient temperature during the pulls — without it the charge air cannot be compared with the air going in.')
-    expect(wrapper.text()).toContain('This log has no outside air temperature. Enter the temperature outside during the runs.')
+    expect(wrapper.text()).toContain('This log has no ambient temperature. Enter the ambient temperature during the pulls.')
     await wrapper.find('[data-testid="condition-ambient"]').setValue('75')
     expect(wrapper.text()).toContain('The ambient temperature must be between −40 and 60 °C.')
     await wrapper.find('[data-testid="condition-ambient"]').setValue('28,5')
