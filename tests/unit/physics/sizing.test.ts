@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { isSizingError, sizeCores, type SizingInput, type SizingPull } from '../../../server/analysis/sizing'
+import { CEILING_MARGIN, isSizingError, ROAD_EFFECTIVENESS_CEILING, sizeCores, type SizingInput, type SizingPull } from '../../../server/analysis/sizing'
 
-// Hand-worked example built from the reference sheet's check values:
+// Hand-worked example built from the reference sheet's check values. The first block works the
+// ideal core (effectivenessCeiling 1), which is exactly the reference sheet's CORE-1; the second
+// block works the same example with the road ceiling of 0.9 that the model uses by default (issue 9).
+//
 // - SD-1 (§8.2): 2.0 L four-stroke, 4000 min⁻¹, MAP 220 kPa abs, charge 40 °C, η_v 0.95 →
 //   ρ_man = 220 000/(287.05287·313.15) = 2.44742 kg/m³, ṁ = 0.95·2.44742·0.002·4000/120 = 0.15500 kg/s
 //   (speed-density, Heywood 1988 §2.10, section from memory).
@@ -24,6 +27,21 @@ import { isSizingError, sizeCores, type SizingInput, type SizingPull } from '../
 // - 700 × 300 × 76 mm: volume ×1.1667, same charge flow area and speeds → UA = 350·1.1667 =
 //   408.34 W/K, cooling air 1.18·4·0.21 → Cr 0.15638, ε 0.88682, T 36.84 °C, density gain 1.41 %,
 //   Δp 6.86 kPa (−1.14 kPa), power 1.96 %.
+//
+// With the road ceiling 0.9 (ROAD_EFFECTIVENESS_CEILING: common practice, no source; see sizing.ts):
+// - the log read 0.84501, so the ideal core behind it gave 0.84501/0.9 = 0.93890; Cr is still
+//   0.18244 and the charge is C_min, so NTU = 3.69699 (exact crossflow series inverted with scipy's
+//   brentq) and UA = 3.69699·155.775 = 575.90 W/K. An independent check that shares no code with the
+//   series: marching the two unmixed streams over an 800 × 800 grid of cells gives ε 0.93890 at
+//   that NTU.
+// - fitted core at design: 0.9·0.93890 = 0.84501 read, 41.22 °C as measured (the ceiling cancels).
+// - 600 × 300 × 114: hA halves 2·575.90 = 1151.80 W/K; hA_charge = 1151.80·1.5·1.5^−0.8 = 1249.2,
+//   hA_air = 1727.7 → UA 724.96 W/K, NTU 4.65389 → ideal ε 0.96475, read 0.9·0.96475 = 0.86828,
+//   T = 129.63 − 0.86828·104.63 = 38.78 °C; density gain 314.367/311.932 − 1 = 0.78 %; Δp +4.0 kPa
+//   as before; power ((220 − 12)/(220 − 8))·1.00780 − 1 = −1.12 %.
+// - 700 × 300 × 76: UA 575.90·7/6 = 671.88 W/K, NTU 4.31315, Cr 0.15638 → ideal ε 0.96227, read
+//   0.86604, T 39.02 °C, density gain 0.71 %, Δp −1.14 kPa, power 1.248 %.
+// The ceiling squeezes the gains: near the top of the curve a bigger core buys less.
 
 const pull: SizingPull = {
   effectiveness: 0.84501,
@@ -46,11 +64,11 @@ const input = (over: Partial<SizingInput> = {}): SizingInput => ({
   fittedCore: fitted,
   candidates: [fitted, deep, wide],
   design: { ambientC: 25, boostKpaAbs: 220, roadSpeedKmh: 57.6 },
-  options: { volumetricEfficiency: 0.95, coolingAirDensityKgM3: 1.18 },
+  options: { volumetricEfficiency: 0.95, coolingAirDensityKgM3: 1.18, effectivenessCeiling: 1 },
   ...over,
 })
 
-describe('front-mount sizing, hand-worked example (reference sheet §6.3 CORE-1 and §8.2 SD-1)', () => {
+describe('front-mount sizing, hand-worked example for the ideal core (reference sheet §6.3 CORE-1 and §8.2 SD-1)', () => {
   const result = sizeCores(input())
 
   it('takes the charge air flow from speed-density when the log has no MAF (SD-1: 0.15500 kg/s)', () => {
@@ -110,6 +128,44 @@ describe('front-mount sizing, hand-worked example (reference sheet §6.3 CORE-1 
     expect(powered.design.massFlowSource).toBe('power')
     expect(powered.design.chargeMassFlowKgS).toBeCloseTo(0.15619, 4)
     expect(powered.candidates[0]!.powerRecoveredKw).not.toBeNull()
+  })
+})
+
+describe('front-mount sizing, the same example with the road ceiling of 0.9 (the default)', () => {
+  const result = sizeCores(input({ options: { volumetricEfficiency: 0.95, coolingAirDensityKgM3: 1.18 } }))
+
+  it('calibrates the ideal core behind the log: 0.84501 read ÷ 0.9 = 0.93890, NTU 3.69699, UA 575.9 W/K', () => {
+    expect(result.calibration.effectivenessCeiling).toBe(ROAD_EFFECTIVENESS_CEILING)
+    expect(result.calibration.effectiveness).toBeCloseTo(0.845, 3)
+    expect(result.calibration.idealEffectiveness).toBeCloseTo(0.939, 3)
+    expect(result.calibration.ntu).toBeCloseTo(3.697, 3)
+    expect(result.calibration.uaWPerK).toBeCloseTo(575.9, 1)
+  })
+
+  it('gives back the fitted core as measured (the ceiling cancels): 41.22 °C', () => {
+    expect(result.design.fittedEffectiveness).toBeCloseTo(0.845, 3)
+    expect(result.design.fittedChargeTempC).toBeCloseTo(41.2, 1)
+  })
+
+  it('predicts each candidate as worked by hand', () => {
+    const byId = Object.fromEntries(result.candidates.map(c => [c.coreId, c]))
+    expect(byId[2]).toMatchObject({ uaWPerK: 725, predictedEffectiveness: 0.868, chargeTempC: 38.8, densityGainPct: 0.8, pressureDropChangeKpa: 4, powerRecoveredPct: -1.1 })
+    expect(byId[3]).toMatchObject({ uaWPerK: 671.9, predictedEffectiveness: 0.866, chargeTempC: 39, densityGainPct: 0.7, pressureDropChangeKpa: -1.1, powerRecoveredPct: 1.2 })
+    expect(result.candidates.map(c => c.coreId)).toEqual([3, 1, 2])
+  })
+
+  it('never predicts a core reading above the ceiling, however large', () => {
+    const huge = { id: 9, name: 'Huge', faceWidthMm: 1200, faceHeightMm: 600, depthMm: 150 }
+    const r = sizeCores(input({ candidates: [huge], options: { volumetricEfficiency: 0.95, coolingAirDensityKgM3: 1.18 } }))
+    expect(r.candidates[0]!.predictedEffectiveness).toBeLessThanOrEqual(ROAD_EFFECTIVENESS_CEILING)
+    expect(r.candidates[0]!.predictedEffectiveness).toBeGreaterThan(0.89)
+  })
+
+  it('raises the ceiling for a log that reads above it, and says so', () => {
+    const high = sizeCores(input({ log: { pulls: [{ ...pull, effectiveness: 0.92 }], baroKpa: 100 }, options: { volumetricEfficiency: 0.95, coolingAirDensityKgM3: 1.18 } }))
+    expect(high.calibration.effectivenessCeiling).toBeCloseTo(0.92 + CEILING_MARGIN, 6)
+    expect(high.design.fittedEffectiveness).toBeCloseTo(0.92, 3)
+    expect(high.assumptions.join(' ')).toMatch(/raised from 0\.90 because this log itself read 0\.92/)
   })
 })
 
