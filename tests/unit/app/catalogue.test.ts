@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { centsToMoneyText, parseMoneyToCents } from '../../../shared/utils/cores'
-import { defaultCandidateIds, optionalNumber, quoteLink } from '../../../utils/sizing'
+import { defaultCandidateIds, measuredText, optionalNumber, quoteLink } from '../../../utils/sizing'
 
 describe('money typed in the major unit', () => {
   it.each([
@@ -35,6 +35,14 @@ describe('sizing page helpers', () => {
 
   it('builds the quote link the quotes page reads', () => {
     expect(quoteLink(4, 9, 2)).toBe('/quotes/new?vehicleId=4&sizingId=9&coreId=2')
+  })
+
+  it('says what the workshop measured with a core, or nothing when it measured nothing', () => {
+    const evidence = { logCount: 2, measuredPullCount: 12, effectiveness: { median: 0.861, p10: 0.846, p90: 0.884 }, vehicles: [{}] }
+    expect(measuredText(evidence)).toBe('86 % (85–88 %) over 12 pulls, 2 logs, 1 car')
+    expect(measuredText({ ...evidence, measuredPullCount: 1, logCount: 1, effectiveness: { median: 0.7, p10: 0.7, p90: 0.7 } })).toBe('70 % over 1 pull, 1 log, 1 car')
+    expect(measuredText({ ...evidence, measuredPullCount: 0, effectiveness: { median: null, p10: null, p90: null } })).toBeNull()
+    expect(measuredText(null)).toBeNull()
   })
 
   it('leaves an empty number field out', () => {
