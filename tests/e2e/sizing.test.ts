@@ -58,46 +58,9 @@ describe('the fabricator keeps the catalogue', () => {
   })
 })
 
+// Sizing three cores on a desktop, through the quote to the paid deposit, is one journey in
+// tests/e2e/quotes.test.ts; here the same page on a phone.
 describe('the fabricator sizes a front-mount for the demo car', () => {
-  it('picks the factory-core log, sizes three cores and sees them ranked with the cautions', async () => {
-    const browser = await openBrowser(DESKTOP)
-    try {
-      const { page } = browser
-      await signInThroughPage(page, 'fab@kestrel.test')
-      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Cars' }).click()
-      await page.getByRole('link', { name: '2.0 L four-cylinder turbo-diesel hatchback' }).click()
-      await page.getByTestId('size-front-mount').click()
-      await page.getByTestId('sizing-form').waitFor()
-
-      // The log made with the factory core is offered first; the ticked cores are the larger ones.
-      expect(await page.getByTestId('sizing-log').locator('option:checked').textContent()).toMatch(/stock-core/)
-      const boxes = page.locator('[data-testid^="candidate-"]')
-      const checked: string[] = []
-      for (let i = 0; i < await boxes.count(); i++) {
-        if (await boxes.nth(i).isChecked()) checked.push((await boxes.nth(i).getAttribute('data-testid'))!)
-      }
-      expect(checked.length).toBeGreaterThanOrEqual(4)
-      // Keep three: untick the rest.
-      for (const id of checked.slice(3)) await page.getByTestId(id).uncheck()
-
-      await page.getByLabel('Ambient temperature (°C)').fill('35')
-      await page.getByTestId('sizing-run').click()
-      await page.getByTestId('sizing-table').waitFor()
-      const rows = page.getByTestId('sizing-row')
-      expect(await rows.count()).toBe(3)
-      expect((await rows.first().locator('td').first().textContent())?.trim()).toBe('1')
-      expect(await rows.first().textContent()).toMatch(/Best:/)
-      await expect(page.getByTestId('sizing-cautions').textContent()).resolves.toMatch(/Pressure-test the charge system/)
-      expect(await page.getByTestId('sizing-calibration').textContent()).toMatch(/Factory side-mount core \(small\)/)
-      const quote = await page.locator('[data-testid^="quote-core-"]').first().getAttribute('href')
-      expect(quote).toMatch(/^\/quotes\/new\?vehicleId=\d+&sizingId=\d+&coreId=\d+$/)
-      await screenshot(page, 'sizing-fabricator')
-    }
-    finally {
-      await browser.close()
-    }
-  })
-
   it('shows the ranking as cards on a phone', async () => {
     const browser = await openBrowser(PHONE)
     try {
@@ -109,6 +72,10 @@ describe('the fabricator sizes a front-mount for the demo car', () => {
       await page.getByTestId('size-front-mount').click()
       await page.getByTestId('sizing-run').click()
       await page.getByTestId('sizing-table').waitFor()
+      // Each card says what was measured with its core, and nothing sticks out sideways.
+      await page.locator('[data-testid^="measured-"]').first().waitFor()
+      expect(await page.locator('[data-testid^="measured-"]').count()).toBe(await page.getByTestId('sizing-row').count())
+      await expect(page.evaluate(() => document.documentElement.scrollWidth)).resolves.toBeLessThanOrEqual(PHONE.width)
       await screenshot(page, 'sizing-phone')
     }
     finally {
