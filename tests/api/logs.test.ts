@@ -226,10 +226,28 @@ describe('PATCH /api/logs/:id', () => {
   it('refuses a pull edit outside the log and changes nothing', async () => {
     const before = await clients.tuner.get(`/api/logs/${tunerLog}/analysis`)
     const reply = await clients.tuner.patch<{ message: string }>(`/api/logs/${tunerLog}`, { pullEdits: { remove: [99] } })
-    expect(reply.status).toBeGreaterThanOrEqual(400)
-    expect(reply.status).toBeLessThan(500)
-    expect(reply.body.message).toBeTruthy()
+    expect(reply.status).toBe(422)
+    // Counted as the report counts its pulls (from 1), not as the request does.
+    expect(reply.body.message).toBe('Remove pull: there is no pull 100; the full-load rule found pulls 1 to 6 in this log. Reload the report and choose a pull from its table.')
     expect((await clients.tuner.get(`/api/logs/${tunerLog}/analysis`)).body).toEqual(before.body)
+  })
+
+  it('refuses pull changes from the customer (403, nothing changed) but takes their conditions', async () => {
+    const before = await clients.tuner.get<Analysis>(`/api/logs/${tunerLog}/analysis`)
+    const detailBefore = await clients.driver.get<Detail>(`/api/logs/${tunerLog}`)
+    for (const pullEdits of [{ remove: [0] }, { rule: { thresholdPct: 50 } }, { keepLeftOut: true }, {}]) {
+      const reply = await clients.driver.patch<{ message: string }>(`/api/logs/${tunerLog}`, { ambientTempC: 12, pullEdits })
+      expect(reply.status).toBe(403)
+      expect(reply.body.message).toBe('Your workshop decides which stretches of a log count as pulls. You can change the notes and the conditions (ambient temperature, altitude, barometric pressure, relative humidity).')
+    }
+    // Nothing half-written: neither the conditions sent alongside nor the pulls.
+    expect((await clients.driver.get<Detail>(`/api/logs/${tunerLog}`)).body.conditions).toEqual(detailBefore.body.conditions)
+    expect((await clients.tuner.get<Analysis>(`/api/logs/${tunerLog}/analysis`)).body).toEqual(before.body)
+
+    const conditions = await clients.driver.patch<Detail>(`/api/logs/${tunerLog}`, { ambientTempC: 31, humidityPct: 40 })
+    expect(conditions.status).toBe(200)
+    expect(conditions.body.conditions).toMatchObject({ ambientTempC: 31, humidityPct: 40 })
+    expect((await clients.tuner.get<Analysis>(`/api/logs/${tunerLog}/analysis`)).body.summary.pullCount).toBe(before.body.summary.pullCount)
   })
 })
 
