@@ -11,7 +11,7 @@ const FIELD_LABELS: Record<string, string> = {
   candidateCoreIds: 'cores to compare',
   logId: 'log',
   sizingId: 'sizing',
-  profileId: 'saved column profile',
+  profileId: 'log profile',
   ambientC: 'ambient temperature',
   ambientTempC: 'ambient temperature',
   ambientTemp: 'ambient temperature',
