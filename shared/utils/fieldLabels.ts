@@ -2,6 +2,9 @@
 // must never come back as `vehicleId: …`. One place; fields not listed are humanised from the name.
 
 const FIELD_LABELS: Record<string, string> = {
+  // The route's id and a token both come from a link a person opened.
+  id: 'link',
+  token: 'link',
   vehicleId: 'car',
   ownerId: 'customer',
   ownerName: 'customer\'s name',
@@ -64,6 +67,10 @@ const FIELD_LABELS: Record<string, string> = {
   email: 'e-mail address',
   q: 'search',
   dir: 'sort order',
+  channels: 'sensors',
+  from: 'start of the chart',
+  to: 'end of the chart',
+  points: 'chart points',
 }
 
 /** "vehicleId" → "car"; an unlisted "someFieldName" → "some field name" (an "Id" ending dropped). */

@@ -70,6 +70,7 @@ export function refusedMoveMessage(from: QuoteState, move: QuoteMove): string {
   if (move === 'pay' && from === 'sent') return 'Accept the quote before paying the deposit.'
   if (move === 'pay' && from === 'deposit_paid') return 'The deposit on this quote is already paid.'
   if (move === 'cancel' && (from === 'deposit_paid' || from === 'in_progress')) return 'A deposit has been paid on this quote: settle the refund with the customer first; Densitas does not cancel paid work.'
+  if (MOVES[move].to === from) return `This quote is already ${state}.`
   return `This quote is ${state}, so it cannot be ${MOVE_WORDS[move]}.`
 }
 

@@ -3,7 +3,7 @@ import { z } from 'zod'
 
 const body = z.object({
   email: emailField,
-  role: z.enum(ROLES, { message: `role is one of ${ROLES.join(', ')}` }),
+  role: z.enum(ROLES, { message: `choose a role: ${ROLES.map(role => ROLE_LABELS[role].toLowerCase()).join(', ')}` }),
 })
 
 const INVITE_DAYS = 7
