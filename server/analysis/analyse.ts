@@ -238,7 +238,7 @@ export function analyseLog(input: LogChannels | ImportedLog, options: AnalyseOpt
   if (ambientChannel && !ambientChannel.some(Number.isFinite)) ambientChannel = undefined
   const enteredAmbientK = options.ambientTempC !== undefined ? options.ambientTempC + KELVIN_OFFSET : mappedFixedValueSI(mapping, 'ambientTemp')
   if (!ambientChannel && enteredAmbientK === undefined) {
-    throw new LogImportError('AMBIENT_REQUIRED', 'This log has no ambient (outside) air temperature channel. Enter the ambient temperature during the log (°C) so temperatures can be compared with it, then analyse again.', { channel: 'ambientTemp' })
+    throw new LogImportError('AMBIENT_REQUIRED', 'This log has no ambient temperature column. Enter the ambient temperature during the pulls (°C), so the charge temperature can be compared with it, and upload the log again.', { channel: 'ambientTemp' })
   }
   const ambientSource: 'channel' | 'entered' = ambientChannel ? 'channel' : 'entered'
 

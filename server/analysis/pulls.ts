@@ -302,7 +302,10 @@ export function applyPullEdits(timeS: Float64Array, auto: readonly PullWindow[],
   const count = auto.length
   const checkIndex = (index: unknown, what: string): number => {
     if (typeof index !== 'number' || !Number.isInteger(index) || index < 0 || index >= count) {
-      throw new LogImportError('BAD_PULL_EDIT', `${what}: pull ${String(index)} does not exist; the log has ${count} detected pull(s), numbered 0 to ${count - 1}.`)
+      // Counted from 1, as the report numbers its pulls; the request itself counts from 0.
+      const named = typeof index === 'number' && Number.isInteger(index) ? `pull ${index + 1}` : 'that pull'
+      const found = count === 0 ? 'the full-load rule found no pulls in this log' : `the full-load rule found ${count === 1 ? 'one pull' : `pulls 1 to ${count}`} in this log`
+      throw new LogImportError('BAD_PULL_EDIT', `${what}: there is no ${named}; ${found}. Reload the report and choose a pull from its table.`)
     }
     return index
   }

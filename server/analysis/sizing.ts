@@ -234,7 +234,7 @@ function logMassFlow(input: SizingInput, pulls: SizingPull[], volumetricEfficien
   const rpm = meanOf(pulls, p => p.meanRpm)
   const manifoldKpa = meanOf(pulls, p => p.meanManifoldKpa)
   if (rpm === null || manifoldKpa === null) {
-    throw new SizingError('NO_MASS_FLOW', 'The log has neither a mass air flow channel nor engine speed and manifold pressure, so the charge air flow cannot be worked out. Log engine speed and manifold pressure (or mass air flow) and try again.')
+    throw new SizingError('NO_MASS_FLOW', 'The log has neither an air mass flow column nor engine speed and boost, so the flow of charge air cannot be worked out. Log engine speed and boost (or air mass flow) and try again.')
   }
   const chargeK = toK(mean(pulls.map(p => p.meanChargeTempC)))
   // ṁ = η_v·ρ_man·V_d·N/120 (Heywood 1988 §2.10, section from memory; reference sheet §8.2).
@@ -461,7 +461,7 @@ function assumptionsFor(effectivenessSource: 'measured' | 'estimated', flowSourc
       ? `The fitted core's effectiveness is the mean of ${pullCount} pull(s) measured with a pre-cooler sensor; heat soak is included, so its UA is on the low side.`
       : `The log has no pre-cooler temperature: the fitted core's effectiveness (mean of ${pullCount} pull(s)) is an estimate from the compressor relation, and so is everything calibrated from it.`,
     flowSource === 'maf'
-      ? 'Charge air flow: the mean of the mass air flow channel over the pulls.'
+      ? 'Charge air flow: the mean of the air mass flow column over the pulls.'
       : `Charge air flow by speed-density from engine size, engine speed, manifold pressure and charge temperature, with a volumetric efficiency of ${volumetricEfficiency.toFixed(2)} (Heywood 1988 §2.10, section from memory; 0.85–1.0 is common practice for a boosted engine).`,
     `Cooling air through the core at ${Math.round(speedRatio * 100)} % of road speed (common practice, no source)${roadFromDesign ? '; the log has no road speed, so the design road speed stands in for it' : ''}.`,
     'Each core\'s heat conductance (UA) is the fitted core\'s split into equal charge-side and air-side halves (common practice, no source), each scaled by core volume (same fin and tube pitch) and by its stream\'s speed: charge side h ∝ Re^0.8 (Dittus–Boelter, Incropera et al. §8.5, from memory), air side h ∝ Re^0.5 (laminar fins, Incropera §7.2, from memory). A deeper core slows the charge air, so it gains less than its volume suggests.',

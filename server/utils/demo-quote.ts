@@ -58,7 +58,7 @@ export async function seedDemoQuote(db: Db, ids: { workshopId: number, fabricato
       to: customer.email,
       subject: `Quote ${quote.number} from ${workshop.name}`,
       kind: 'quote',
-      text: `Hello ${customer.name},\n\n${workshop.name} has quoted the front-mount for your ${vehicle.description}: quote ${quote.number}, attached as a PDF.\n\nOpen it to accept or decline, and to pay the deposit: ${appLink(`/quotes/${quote.id}`)}`,
+      text: `Hello ${customer.name},\n\n${workshop.name} has quoted the front-mount for your ${vehicle.description}: quote ${quote.number}, attached as a PDF.\n\nSign in to Densitas to accept or decline it, and to pay the deposit: ${appLink(`/quotes/${quote.id}`)}`,
       attachments: [{ filename, contentType: 'application/pdf', content: bytes }],
     })
   })

@@ -28,9 +28,18 @@ export function describeIssues(error: z.ZodError): string {
     .join('; ')
 }
 
-function validated<T>(result: z.ZodSafeParseResult<T>, where: string): T {
+// What a person calls each part of a request: they filled in a form, chose values (the query) or
+// opened a link (the route's parameters).
+const WHERE_WORDS = {
+  request: { what: 'the form', fix: 'Correct it and try again.' },
+  query: { what: 'the values you asked for', fix: 'Correct them and try again.' },
+  address: { what: 'the link', fix: 'Open the page again from the menu.' },
+} as const
+
+function validated<T>(result: z.ZodSafeParseResult<T>, where: keyof typeof WHERE_WORDS): T {
   if (!result.success) {
-    badRequest(`Please check the ${where === 'request' ? 'form' : where} — ${describeIssues(result.error)}. Correct it and try again.`, { issues: result.error.issues })
+    const words = WHERE_WORDS[where]
+    badRequest(`Please check ${words.what} — ${describeIssues(result.error)}. ${words.fix}`, { issues: result.error.issues })
   }
   return result.data
 }

@@ -2,7 +2,7 @@ import { and, eq, inArray } from 'drizzle-orm'
 import type Stripe from 'stripe'
 import { QUOTE_MAKER_ROLES } from '#shared/utils/abilities'
 import { formatMoney } from '#shared/utils/format'
-import { canMoveQuote } from '#shared/utils/quotes'
+import { canMoveQuote, QUOTE_STATE_LABELS } from '#shared/utils/quotes'
 
 // A verified notice from the payment service. Each event id is handled once (payment_events), in
 // the same transaction as its effects, so a replayed notice changes nothing.
@@ -38,18 +38,19 @@ export function recordPaymentNotice(notice: Stripe.Event) {
       .where(and(eq(tables.users.workshopId, quote.workshopId), inArray(tables.users.role, [...QUOTE_MAKER_ROLES]))).all()
     const vehicle = tx.select({ description: tables.vehicles.description }).from(tables.vehicles).where(eq(tables.vehicles.id, quote.vehicleId)).get()
     const amount = formatMoney(session.amount_total, quote.currency)
+    const state = QUOTE_STATE_LABELS[quote.status].toLowerCase()
     for (const person of staff) {
       queueMail(tx, {
         workshopId: quote.workshopId,
         to: person.email,
         kind: 'payment',
-        subject: payable ? `Deposit paid on quote ${quote.number}` : `Payment received on ${quote.status} quote ${quote.number}: settle it`,
+        subject: payable ? `Deposit paid on quote ${quote.number}` : `Payment received on quote ${quote.number}, which is ${state}: settle it`,
         text: [
           `Hello ${person.name},`,
           '',
           payable
             ? `The customer paid the deposit of ${amount} on quote ${quote.number} (${vehicle?.description ?? 'their car'}). The work can be booked in.`
-            : `A payment of ${amount} arrived for quote ${quote.number}, which is ${quote.status}. Settle it with the customer (refund or re-quote).`,
+            : `A payment of ${amount} arrived for quote ${quote.number}, which is ${state}, so it was not recorded as a deposit. Densitas does not refund: settle it with the customer yourselves (refund it through your payment service, or agree a new quote).`,
           '',
           appLink(`/quotes/${quote.id}`),
         ].join('\n'),

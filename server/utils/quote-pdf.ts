@@ -124,7 +124,7 @@ export function renderQuotePdf(input: QuotePdfInput, fontBytes: Uint8Array): Pro
     [`Tax (${input.taxRatePct} %)`, money(input.taxCents), 10.5],
     ['Total', money(input.totalCents), 14],
     [`Deposit to book the work (${input.depositPct} %)`, money(input.depositCents), 10.5],
-    ['Balance due on completion', money(input.totalCents - input.depositCents), 10.5],
+    ['Balance on completion', money(input.totalCents - input.depositCents), 10.5],
   ]
   if (y + 100 > bottom) {
     doc.addPage()

@@ -1,7 +1,8 @@
 import { z } from 'zod'
 
-// Route parameters: ids are positive integers; anything else is a 404 (a malformed id names no row).
-export const idParams = z.object({ id: z.coerce.number().int().positive() })
+// Route parameters: ids are positive whole numbers; anything else is a 400 that says the link is wrong.
+const LINK_NUMBER = 'the link should end in a whole number'
+export const idParams = z.object({ id: z.coerce.number({ message: LINK_NUMBER }).int(LINK_NUMBER).positive(LINK_NUMBER) })
 
 export const emailField = z.string().trim().toLowerCase().max(254, 'an e-mail address has at most 254 characters').pipe(z.email({ message: 'enter an e-mail address like name@example.com' }))
 

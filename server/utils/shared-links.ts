@@ -2,7 +2,8 @@ import { and, desc, eq, gt, isNull, or } from 'drizzle-orm'
 import { z } from 'zod'
 import type { Actor } from '#shared/utils/abilities'
 
-export const tokenParams = z.object({ token: z.string().min(20).max(100) })
+const CUT_LINK = 'this shared link is not complete: copy the whole link from the e-mail or message'
+export const tokenParams = z.object({ token: z.string().min(20, CUT_LINK).max(100, CUT_LINK) })
 
 // One mechanism for every shared link: a log's report or a comparison. Exactly one target is set.
 export type ShareTarget = { logId: number } | { comparisonId: number }

@@ -81,11 +81,11 @@ export interface SharedReport {
 /** Canonical channels offered in the mapping form, in the order a person thinks of them. */
 export const MAPPABLE_CHANNELS: readonly { id: ChannelId, label: string, units: readonly string[], needed?: boolean }[] = [
   { id: 'time', label: 'Time', units: ['s', 'ms', 'clock', 'hms'], needed: true },
-  { id: 'chargeTemp', label: 'Charge air temperature (after the intercooler)', units: ['degC', 'degF', 'K'], needed: true },
+  { id: 'chargeTemp', label: 'Charge temperature (after the intercooler)', units: ['degC', 'degF', 'K'], needed: true },
   { id: 'preCoolerTemp', label: 'Pre-cooler temperature (before the intercooler)', units: ['degC', 'degF', 'K'] },
   { id: 'ambientTemp', label: 'Ambient temperature', units: ['degC', 'degF', 'K'] },
-  { id: 'manifoldPressure', label: 'Manifold pressure (absolute)', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
-  { id: 'boost', label: 'Boost (gauge)', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
+  { id: 'manifoldPressure', label: 'Boost, absolute (manifold pressure)', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
+  { id: 'boost', label: 'Boost, gauge (above barometric pressure)', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
   { id: 'baro', label: 'Barometric pressure', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
   { id: 'rpm', label: 'Engine speed', units: ['rpm'] },
   { id: 'pedal', label: 'Accelerator pedal', units: ['%'] },

@@ -2,6 +2,9 @@
 // must never come back as `vehicleId: …`. One place; fields not listed are humanised from the name.
 
 const FIELD_LABELS: Record<string, string> = {
+  // The route's id and a token both come from a link a person opened.
+  id: 'link',
+  token: 'link',
   vehicleId: 'car',
   ownerId: 'customer',
   ownerName: 'customer\'s name',
@@ -11,7 +14,7 @@ const FIELD_LABELS: Record<string, string> = {
   candidateCoreIds: 'cores to compare',
   logId: 'log',
   sizingId: 'sizing',
-  profileId: 'saved column profile',
+  profileId: 'log profile',
   ambientC: 'ambient temperature',
   ambientTempC: 'ambient temperature',
   ambientTemp: 'ambient temperature',
@@ -44,6 +47,30 @@ const FIELD_LABELS: Record<string, string> = {
   workshopName: 'workshop name',
   pageSize: 'page size',
   degC: '°C',
+  altitudeM: 'site altitude',
+  baroKpa: 'barometric pressure',
+  humidityPct: 'relative humidity',
+  taxRatePct: 'tax rate',
+  depositPct: 'deposit',
+  powerKw: 'measured power',
+  torqueNm: 'torque',
+  rpm: 'engine speed',
+  priceCents: 'sell price',
+  costCents: 'cost',
+  faceWidthMm: 'face width',
+  faceHeightMm: 'face height',
+  depthMm: 'depth',
+  inletDiameterMm: 'inlet diameter',
+  outletDiameterMm: 'outlet diameter',
+  weightKg: 'weight',
+  uaWPerK: 'heat conductance (UA)',
+  email: 'e-mail address',
+  q: 'search',
+  dir: 'sort order',
+  channels: 'sensors',
+  from: 'start of the chart',
+  to: 'end of the chart',
+  points: 'chart points',
 }
 
 /** "vehicleId" → "car"; an unlisted "someFieldName" → "some field name" (an "Id" ending dropped). */

@@ -18,7 +18,7 @@ export const QUOTE_STATE_LABELS: Record<QuoteState, string> = {
 
 // The usual cautions, on every quote (page and PDF): the work is real fabrication on a road car.
 export const QUOTE_CAUTIONS = [
-  'Fabrication, cutting of the bumper and any bracket work follow the vehicle maker\'s instructions and local codes and road-legality rules; check clearance, radiator and condenser airflow and the crash structure before cutting.',
+  'Fabrication, cutting of the bumper and any bracket work follow the car maker\'s instructions and local codes and road-legality rules; check clearance, radiator and condenser airflow and the crash structure before cutting.',
   'The charge system is pressure-tested on a proper test rig, within the ratings of its parts, before the car goes back on the road.',
   'Any cooling figures quoted are estimates from a log and a model, to be confirmed by a log after fitting.',
 ]
@@ -70,6 +70,7 @@ export function refusedMoveMessage(from: QuoteState, move: QuoteMove): string {
   if (move === 'pay' && from === 'sent') return 'Accept the quote before paying the deposit.'
   if (move === 'pay' && from === 'deposit_paid') return 'The deposit on this quote is already paid.'
   if (move === 'cancel' && (from === 'deposit_paid' || from === 'in_progress')) return 'A deposit has been paid on this quote: settle the refund with the customer first; Densitas does not cancel paid work.'
+  if (MOVES[move].to === from) return `This quote is already ${state}.`
   return `This quote is ${state}, so it cannot be ${MOVE_WORDS[move]}.`
 }
 

@@ -109,6 +109,13 @@ describe('the demo pair', () => {
   })
 })
 
+// What each refusal says: sign in; the role does not build comparisons; the car is not theirs to see.
+const REFUSALS: Record<number, string> = {
+  401: 'Sign in first: this needs a Densitas account.',
+  403: 'Only a tuner or the workshop owner builds comparisons. You can read the ones on this car.',
+  404: 'Car not found. Check the link, or ask the workshop for a new one.',
+}
+
 describe('POST /api/comparisons', () => {
   it.each([
     ['anonymous', 'driverCar', 401], ['owner', 'driverCar', 201], ['tuner', 'driverCar', 201], ['fabricator', 'driverCar', 403],
@@ -122,7 +129,7 @@ describe('POST /api/comparisons', () => {
       expect(footprint()).toEqual({ comparisons: before.comparisons + 1, sides: before.sides + 2 })
     }
     else {
-      expect(reply.body.message).toBeTruthy()
+      expect(reply.body.message).toBe(REFUSALS[status])
       expect(footprint()).toEqual(before)
     }
   })

@@ -225,7 +225,7 @@ describe('a retired core is not offered for fitting', () => {
     const before = readDatabase(db => (db.prepare('select fitted_core_id f from vehicles where id = ?').get(car) as { f: number | null }).f)
     const reply = await clients.owner.patch<{ message: string }>(`/api/vehicles/${car}`, { fittedCoreId: created.body.id })
     expect(reply.status).toBe(400)
-    expect(reply.body.message).toMatch(/retired/)
+    expect(reply.body.message).toBe('Fitted core: that core is retired from the catalogue. Pick a current core, or bring it back in the catalogue first.')
     expect(readDatabase(db => (db.prepare('select fitted_core_id f from vehicles where id = ?').get(car) as { f: number | null }).f)).toBe(before)
   })
 })

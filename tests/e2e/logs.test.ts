@@ -51,7 +51,7 @@ describe('the driver uploads a log from a phone', () => {
       await page.getByTestId('upload-preview').waitFor()
       await expect(page.getByTestId('upload-preview').textContent()).resolves.toMatch(/Charge air temp/)
       await expect(page.getByTestId('mapping-column-chargeTemp').inputValue()).resolves.toBe('Charge air temp (°C)')
-      // The demo log carries its own outside temperature: no question about it.
+      // The demo log carries its own ambient temperature: no question about it.
       await expect(page.getByTestId('ambient-prompt').count()).resolves.toBe(0)
       await screenshot(page, 'logs-phone-driver-upload')
 
@@ -173,10 +173,10 @@ describe('the tuner corrects a mapping and saves it as a profile', () => {
   })
 })
 
-describe('a real log without an outside temperature, shared with the driver', () => {
+describe('a real log without an ambient temperature, shared with the customer', () => {
   const petrol = resolve(import.meta.dirname, '..', '..', '..', 'shared', 'data', 'real', 'obd-na-petrol-city-long2.csv')
 
-  it('asks for the outside temperature, analyses, and the shared link opens without sign-in', async () => {
+  it('asks for the ambient temperature, analyses, and the shared link opens without sign-in', async () => {
     const tuner = await openBrowser(DESKTOP)
     const visitor = await openBrowser(PHONE)
     try {
@@ -232,7 +232,7 @@ describe('the real turbo-diesel log with engine stops', () => {
       await page.getByTestId('mapping-form').waitFor()
       // The diesel's throttle flap never reaches full: the pedal is what marks a run.
       await expect(page.getByTestId('mapping-column-pedal').inputValue()).resolves.toMatch(/Accelerator Pedal Position/)
-      // The log has its own outside temperature: no question about it.
+      // The log has its own ambient temperature: no question about it.
       await expect(page.getByTestId('ambient-prompt').count()).resolves.toBe(0)
       await page.getByTestId('upload-submit').click()
       await page.getByTestId('log-report').waitFor({ timeout: 50_000 })

@@ -23,6 +23,42 @@ describe('ComparisonVerdict', () => {
   })
 })
 
+describe('ComparisonVerdict headline and sentence, as read', () => {
+  const read = async (comparison: typeof view) => {
+    const wrapper = await mountSuspended(Verdict, { props: { comparison } })
+    return { headline: wrapper.find('h2').text(), sentence: wrapper.find('[data-testid="comparison-verdict-text"]').text(), tone: wrapper.find('[data-testid="comparison-verdict"]').attributes('data-tone') }
+  }
+
+  it('better: the headline, then the gain with its interval and what it is worth at the reference ambient', async () => {
+    expect(await read(view)).toEqual({
+      tone: 'better',
+      headline: 'The after core works better',
+      // ε̄ 0.63 → 0.83 (+20.0 points), ΔT over ambient 38 → 18 K (−20.0 K); at 25 °C the charge air is
+      // 18.7 K cooler (the unit test's working), 1 − T_after/T_before ≈ 5.9 % denser.
+      sentence: 'The after core works better: effectiveness +20.0 points (95 % interval +13.9 points to +26.1 points), and the charge air sits 20.0 K less above the ambient temperature. At 25 °C ambient the engine would breathe charge air 18.7 K cooler: about 5.9 % more power at the same boost (upper bound).',
+    })
+  })
+
+  it('within the noise: two pulls a side whose spread covers the change', async () => {
+    // Before ε 0.70 and 0.60, after 0.69 and 0.61 at one ambient: the means are equal (0.65) and the
+    // spread of ±5 points a side gives an interval that includes no change.
+    const noisy = compareCores([{ ...before, pulls: [pull(0, 20, 120, 50), pull(1, 20, 120, 60)] }], [{ ...after, pulls: [pull(0, 20, 120, 51), pull(1, 20, 120, 59)] }], { ratedPowerKw: 100 })
+    const { headline, sentence, tone } = await read({ ...view, ...noisy })
+    expect({ headline, tone }).toEqual({ headline: 'Within the noise', tone: 'noise' })
+    expect(sentence).toMatch(/^The difference is within the noise: effectiveness changed by \+0\.0 points, but its 95 % interval, −\d+\.\d points to \+\d+\.\d points, includes no change at all\. More pulls on each side would narrow it\.$/)
+  })
+
+  it('too few pulls: says so instead of giving an interval, and asks for more pulls', async () => {
+    const one = compareCores([{ ...before, pulls: [pull(0, 20, 120, 50)] }], [{ ...after, pulls: [pull(0, 20, 120, 45)] }], { ratedPowerKw: 100 })
+    expect(await read({ ...view, ...one })).toEqual({
+      tone: 'too-few',
+      headline: 'Too few pulls to tell',
+      // ε 0.70 → 0.75: +5.0 points, one pull a side.
+      sentence: 'Too few matched pulls for an interval: effectiveness changed by +5.0 points, but at least two pulls a side are needed to say whether that is more than pull-to-pull spread. Log a few more pulls.',
+    })
+  })
+})
+
 describe('ComparisonFigures', () => {
   it('gives the gain in points with its Welch interval, and follows the units store', async () => {
     const wrapper = await mountSuspended(Figures, { props: { comparison: view } })

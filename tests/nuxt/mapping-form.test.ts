@@ -149,7 +149,7 @@ describe('MappingForm with columns the engine did not recognise', () => {
     const wrapper = await mountSuspended(MappingForm)
     const offer = wrapper.find('[data-testid="mapping-unrecognised"]')
     expect(offer.exists()).toBe(true)
-    // chargeTemp is taken already, so only the outside temperature is offered for "Temp B".
+    // chargeTemp is taken already, so only the ambient temperature is offered for "Temp B".
     const select = wrapper.find('[data-testid="unrecognised-Temp B (°F)"] select')
     expect(select.findAll('option').map(o => o.text())).toEqual(['Not used', 'Ambient temperature (in °F)'])
     await select.setValue('ambientTemp')

@@ -11,7 +11,7 @@ describe('ReportPullTable', () => {
     const rows = wrapper.findAll('[data-testid="pull-row"]')
     expect(rows).toHaveLength(6)
     expect(wrapper.findAll('th').map(th => th.text().replace(/[▲▼↕]/g, '').trim()))
-      .toEqual(['Pull', 'From (s)', 'Charge air', 'Over ambient', 'Manifold', 'Effectiveness', 'Density ratio (× standard air)', 'Power lost'])
+      .toEqual(['Pull', 'From (s)', 'Charge temperature', 'Over ambient', 'Boost', 'Effectiveness', 'Density ratio (× standard air)', 'Power lost'])
     // Pull 1: 60–67 s, 40 °C, 10 K over 30 °C ambient, 220 kPa, ε (130 − 40)/100, σ 2.10, no loss.
     expect(cellsOf(rows[0]!)).toEqual(['1', '60.0–67.0', '40.0 °C', '10.0 K', '220.0 kPa', '90 %', '2.10', '0.0 %'])
     // Pull 6: 49 °C; loss 1 − 313.15/322.15 = 2.794 %.

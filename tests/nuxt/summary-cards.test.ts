@@ -24,7 +24,7 @@ describe('ReportSummaryCards', () => {
     const { read } = await cards()
     expect(read('pulls')).toEqual(['Pulls', '6', 'full-load rule chosen automatically; see below'])
     // Hottest pull: mean 40 + 5 · 1.8 = 49 °C, peak 2 K above its mean.
-    expect(read('peak')).toEqual(['Hottest charge air', '51.0 °C', 'ambient 30.0 °C'])
+    expect(read('peak')).toEqual(['Highest charge temperature', '51.0 °C', 'ambient 30.0 °C'])
     expect(read('soak')).toEqual(['Soak per pull', '1.80 K', '9.0 K first to last'])
     // 1 − 313.15/322.15 = 2.794 % (density law), shown to one decimal.
     expect(read('loss')).toEqual(['Most power lost', '2.8 %', 'vs the coolest pull, at equal ambient and boost'])
@@ -52,7 +52,7 @@ describe('ReportSummaryCards', () => {
     })
     expect(read('eff')[1]).toBe('—')
     expect(none.read('pulls')[1]).toBe('0')
-    expect(none.read('peak')).toEqual(['Hottest charge air', '—', 'ambient —'])
+    expect(none.read('peak')).toEqual(['Highest charge temperature', '—', 'ambient —'])
     expect(none.read('soak')).toEqual(['Soak per pull', '—', ''])
     expect(none.read('loss')[1]).toBe('—')
   })
@@ -64,7 +64,7 @@ describe('ReportSummaryCards', () => {
     units.power = 'hp'
     const { read } = await cards({ maxPowerLossVsCoolestKw: 3.07 })
     // 51 °C = 123.8 °F; 30 °C = 86.0 °F; 1.8 K = 3.24 °F; 100.5 kPa / 6.894757 = 14.6 psi; 3.07 kW = 4.1 hp.
-    expect(read('peak')).toEqual(['Hottest charge air', '123.8 °F', 'ambient 86.0 °F'])
+    expect(read('peak')).toEqual(['Highest charge temperature', '123.8 °F', 'ambient 86.0 °F'])
     expect(read('soak')[1]).toBe('3.24 °F')
     expect(read('baro')[1]).toBe('14.6 psi')
     expect(read('loss')[2]).toBe('≈ 4.1 hp vs the coolest pull, at equal ambient and boost')

@@ -79,7 +79,7 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
   }
   const pressure = byChannel.get('manifoldPressure') ?? byChannel.get('boost')
   if (pressure) {
-    series.push(line(pressure.channel === 'boost' ? 'Boost' : 'Manifold pressure', CHART_PALETTE.pressure, seriesPoints(pressure, units), 1, { lineStyle: { width: 1.25, color: CHART_PALETTE.pressure, type: 'dashed' } }))
+    series.push(line(pressure.channel === 'boost' ? 'Boost (gauge)' : 'Boost (absolute)', CHART_PALETTE.pressure, seriesPoints(pressure, units), 1, { lineStyle: { width: 1.25, color: CHART_PALETTE.pressure, type: 'dashed' } }))
   }
   const rpm = byChannel.get('rpm')
   if (rpm) series.push(line('Engine speed', CHART_PALETTE.rpm, seriesPoints(rpm, units), 2, { lineStyle: { width: 1, color: CHART_PALETTE.rpm, opacity: 0.7 } }))

@@ -290,7 +290,7 @@ export class ColumnSink {
     this.count = n + 1
     if (this.count > this.plan.maxRows) {
       throw new LogImportError('TOO_MANY_ROWS',
-        `The log has more than ${this.plan.maxRows.toLocaleString('en')} rows (limit reached at line ${line}). Split it into shorter sessions or log at a lower rate, then upload each part.`, { line })
+        `The log has more than ${this.plan.maxRows.toLocaleString('en')} rows (limit reached at line ${line}). Split it into shorter logs or log at a lower rate, then upload each part.`, { line })
     }
   }
 

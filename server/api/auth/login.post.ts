@@ -3,7 +3,7 @@ import { z } from 'zod'
 
 const body = z.object({
   email: z.string().trim().toLowerCase().min(1, 'enter your e-mail address').max(254, 'an e-mail address has at most 254 characters'),
-  password: z.string().min(1, 'enter your password').max(200, 'a password has at most 200 characters'),
+  password: z.string({ message: 'enter your password' }).min(1, 'enter your password').max(200, 'a password has at most 200 characters'),
 })
 
 export default defineEventHandler(async (event) => {

@@ -3,7 +3,7 @@ import { z } from 'zod'
 
 const body = z.object({
   email: emailField,
-  role: z.enum(ROLES, { message: `role is one of ${ROLES.join(', ')}` }),
+  role: z.enum(ROLES, { message: `choose a role: ${ROLES.map(role => ROLE_LABELS[role].toLowerCase()).join(', ')}` }),
 })
 
 const INVITE_DAYS = 7
@@ -23,7 +23,7 @@ export default defineEventHandler(async (event) => {
   const { token, tokenHash } = newToken()
   const link = appLink(`/join?token=${token}`)
   const text = existing
-    ? `Hello,\n\n${actor.name} of ${workshop.name} invites you to Densitas as ${ROLE_LABELS[role].toLowerCase()}. This address already has a Densitas account with another workshop, and an account belongs to one workshop, so the invitation cannot be taken up with it. Reply to ${workshop.name} with another address to use, or sign in to your account as before.\n\nIf you did not expect this, ignore this e-mail.`
+    ? `Hello,\n\n${actor.name} of ${workshop.name} invites you to Densitas as ${ROLE_LABELS[role].toLowerCase()}. This address already has a Densitas account with another workshop, and an account belongs to one workshop, so the invitation cannot be taken up with it. Ask ${workshop.name} to invite another address of yours, or sign in to your account as before.\n\nIf you did not expect this, ignore this e-mail.`
     : `Hello,\n\n${actor.name} of ${workshop.name} invites you to Densitas as ${ROLE_LABELS[role].toLowerCase()}. Open this link within ${INVITE_DAYS} days to choose your password:\n\n${link}\n\nIf you did not expect this, ignore this e-mail.`
   const { invite, mailId } = db.transaction((tx) => {
     const row = tx.insert(tables.invites).values({

@@ -29,6 +29,10 @@ export default defineEventHandler(async (event) => {
   const { log, vehicle } = findVisibleLog(actor, id)
   if (!canEditLog(actor, vehicle)) forbidden('Your role can read this log but not change it.')
   const changes = await readBodyWith(event, body)
+  // The pulls form is for the people who read logs; a customer changes the conditions and notes only.
+  if (changes.pullEdits !== undefined && !canEditPulls(actor, vehicle)) {
+    forbidden('Your workshop decides which stretches of a log count as pulls. You can change the notes and the conditions (ambient temperature, altitude, barometric pressure, relative humidity).')
+  }
 
   const conditions = { ...log.conditions }
   for (const key of ['ambientTempC', 'altitudeM', 'baroKpa', 'humidityPct'] as const) {

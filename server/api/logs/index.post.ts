@@ -53,7 +53,7 @@ export default defineEventHandler(async (event) => {
     const input = parsed.data
 
     const vehicle = findVisibleVehicle(actor, input.vehicleId)
-    if (!canUploadLog(actor, vehicle)) forbidden('Your role cannot upload logs. Ask a tuner, or the car\'s owner.')
+    if (!canUploadLog(actor, vehicle)) forbidden('Your role cannot upload logs. Ask a tuner or the workshop owner to upload it, or the customer whose car it is.')
     if (input.coreId !== undefined && !canChangeLogCore(actor)) forbidden('Only the workshop\'s staff record which core was fitted; leave the core out and the car\'s fitted core is used.')
     assertCatalogueCore(actor, input.coreId)
 

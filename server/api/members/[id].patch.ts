@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 
-const body = z.object({ role: z.enum(ROLES, { message: `role is one of ${ROLES.join(', ')}` }) }).strict()
+const body = z.object({ role: z.enum(ROLES, { message: `choose a role: ${ROLES.map(role => ROLE_LABELS[role].toLowerCase()).join(', ')}` }) }).strict()
 
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)

@@ -97,7 +97,7 @@ describe('pull edits', () => {
 
   it('rejects edits that point nowhere, with a message', async () => {
     const { log } = await analysed('stock-core-hot-day')
-    expect(() => analyseLog(log, { pullEdits: { remove: [9] } })).toThrow(/pull 9 does not exist/)
+    expect(() => analyseLog(log, { pullEdits: { remove: [9] } })).toThrow('Remove pull: there is no pull 10; the full-load rule found pulls 1 to 6 in this log. Reload the report and choose a pull from its table.')
     expect(() => analyseLog(log, { pullEdits: { add: [{ startS: 30, endS: 10 }] } })).toThrow(LogImportError)
   })
 })

@@ -8,6 +8,19 @@ describe('field names in messages a person reads', () => {
     expect(fieldLabel('fittedCoreId')).toBe('fitted core')
     expect(fieldLabel('ambientTempC')).toBe('ambient temperature')
     expect(fieldLabel('recordedOn')).toBe('day of the pulls')
+    // The glossary's one word for the outside air pressure, on the upload form, the log's
+    // conditions and a dyno run alike.
+    expect(fieldLabel('baroKpa')).toBe('barometric pressure')
+    expect(fieldLabel('humidityPct')).toBe('relative humidity')
+    expect(fieldLabel('altitudeM')).toBe('site altitude')
+  })
+
+  it('never lets a unit ending of a request key reach the words', () => {
+    // Keys of the request schemas that end in a unit (server/api, server/utils).
+    const keys = ['altitudeM', 'baroKpa', 'humidityPct', 'taxRatePct', 'depositPct', 'powerKw', 'torqueNm', 'priceCents', 'costCents',
+      'faceWidthMm', 'faceHeightMm', 'depthMm', 'inletDiameterMm', 'outletDiameterMm', 'weightKg', 'uaWPerK', 'ratedPowerKw', 'targetPowerKw',
+      'roadSpeedKmh', 'labourRateCents', 'unitPriceCents', 'displacementL', 'thresholdPct', 'ambientTempC', 'referenceAmbientC']
+    for (const key of keys) expect(fieldLabel(key), key).not.toMatch(/\b(m|kpa|pct|kw|nm|cents|mm|kg|w per k|kmh|l|c)$/i)
   })
 
   it('spells an unlisted key out in words, without an "Id" ending', () => {

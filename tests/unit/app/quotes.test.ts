@@ -78,7 +78,7 @@ describe('quote states', () => {
 
   it('refuses paying a declined quote and editing a sent one', () => {
     expect(nextQuoteState('declined', 'pay')).toBeNull()
-    expect(refusedMoveMessage('declined', 'pay')).toMatch(/declined/)
+    expect(refusedMoveMessage('declined', 'pay')).toBe('This quote is declined, so it cannot be paid.')
     expect(isQuoteEditable('sent')).toBe(false)
     expect(isQuoteEditable('draft')).toBe(true)
     expect(nextQuoteState('sent', 'revise')).toBe('draft')
@@ -94,7 +94,13 @@ describe('quote states', () => {
   it('does not cancel work once the deposit is paid', () => {
     expect(canMoveQuote('deposit_paid', 'cancel')).toBe(false)
     expect(canMoveQuote('in_progress', 'cancel')).toBe(false)
-    expect(refusedMoveMessage('deposit_paid', 'cancel')).toMatch(/refund/)
+    expect(refusedMoveMessage('deposit_paid', 'cancel')).toBe('A deposit has been paid on this quote: settle the refund with the customer first; Densitas does not cancel paid work.')
+  })
+
+  it('says "already" for a move to the state the quote is in, not "cannot be"', () => {
+    expect(refusedMoveMessage('completed', 'complete')).toBe('This quote is already completed.')
+    expect(refusedMoveMessage('cancelled', 'cancel')).toBe('This quote is already cancelled.')
+    expect(refusedMoveMessage('completed', 'cancel')).toBe('This quote is completed, so it cannot be cancelled.')
   })
 
   it('lets only the customer-facing states expire, after their last valid day', () => {

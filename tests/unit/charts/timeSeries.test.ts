@@ -22,7 +22,7 @@ describe('timeSeriesOption', () => {
     const series = seriesOf(option)
     expect(series.find(s => s.name === 'Charge temperature')!.data[0]![1]).toBe(104)
     // 200 kPa = 29.01 psi
-    expect(series.find(s => s.name === 'Manifold pressure')!.data[0]![1]).toBeCloseTo(29.01, 2)
+    expect(series.find(s => s.name === 'Boost (absolute)')!.data[0]![1]).toBeCloseTo(29.01, 2)
     expect((option.yAxis as { name: string }[])[0]!.name).toBe('°F')
     expect((option.yAxis as { name: string }[])[1]!.name).toBe('psi')
   })
@@ -35,12 +35,12 @@ describe('timeSeriesOption', () => {
 
   it('gives boost and engine speed their own axes', () => {
     const series = seriesOf(timeSeriesOption(base))
-    expect(series.find(s => s.name === 'Manifold pressure')!.yAxisIndex).toBe(1)
+    expect(series.find(s => s.name === 'Boost (absolute)')!.yAxisIndex).toBe(1)
     expect(series.find(s => s.name === 'Engine speed')!.yAxisIndex).toBe(2)
   })
 
   it('keeps a missing reading as a gap, not a zero', () => {
-    const pressure = seriesOf(timeSeriesOption(base)).find(s => s.name === 'Manifold pressure')!
+    const pressure = seriesOf(timeSeriesOption(base)).find(s => s.name === 'Boost (absolute)')!
     expect(pressure.data[5]).toEqual([50, null])
   })
 

@@ -188,7 +188,7 @@ describe('front-mount sizing refuses impossible input with a message, never NaN'
   it('refuses a road speed below 20 km/h', () => refuses({ design: { ambientC: 25, roadSpeedKmh: 5 } }, 'BAD_DESIGN', /20 and 300 km\/h/))
   it('refuses a log without pulls', () => refuses({ log: { pulls: [], baroKpa: 100 } }, 'NO_PULLS', /no pulls/))
   it('refuses a log whose pulls have no effectiveness', () => refuses({ log: { pulls: [{ ...pull, effectiveness: null }], baroKpa: 100 } }, 'NO_EFFECTIVENESS', /Pick another log/))
-  it('refuses a log with no way to know the air flow', () => refuses({ log: { pulls: [{ ...pull, meanRpm: null }], baroKpa: 100 } }, 'NO_MASS_FLOW', /mass air flow/))
+  it('refuses a log with no way to know the air flow', () => refuses({ log: { pulls: [{ ...pull, meanRpm: null }], baroKpa: 100 } }, 'NO_MASS_FLOW', /air mass flow/))
   it('refuses an effectiveness the core cannot reach', () => refuses({ log: { pulls: [{ ...pull, effectiveness: 0.995 }], baroKpa: 100 } }, 'NOT_CALIBRATABLE', /0\.99/))
   it('refuses an effectiveness beyond what the cooling air allows', () => refuses({ options: { coolingAirDensityKgM3: 0.1, volumetricEfficiency: 0.95 } }, 'NOT_CALIBRATABLE', /more than a 600 × 300 mm core can reach/))
   it('refuses an empty candidate list', () => refuses({ candidates: [] }, 'NO_CANDIDATES', /at least one core/))

@@ -9,12 +9,12 @@ export default defineEventHandler(async (event) => {
     csvLine(['Car', vehicle.description]),
     csvLine(['Log file', log.originalName]),
     csvLine(['Notes', log.notes]),
-    csvLine(['Power loss basis', analysis.summary.powerLossBasis]),
+    csvLine(['How power lost is worked out', analysis.summary.powerLossBasis]),
     '',
     csvLine([
       'Pull', 'Start (s)', 'End (s)', 'Mean charge temperature (°C)', 'Peak charge temperature (°C)', 'Ambient temperature (°C)', 'Temperature over ambient (K)',
-      'Manifold pressure (kPa abs)', 'Pre-cooler temperature (°C)', 'Intercooler effectiveness', 'Effectiveness from', 'Density ratio (× standard air)',
-      'Power loss vs coolest pull (%)', 'Power loss vs ambient-temperature charge (%)', 'Power loss vs coolest pull (kW)',
+      'Boost (kPa abs)', 'Pre-cooler temperature (°C)', 'Effectiveness', 'Effectiveness measured or estimated', 'Density ratio (× standard air)',
+      'Power lost vs coolest pull (%)', 'Power lost vs charge at ambient temperature (%)', 'Power lost vs coolest pull (kW)',
     ]),
     ...analysis.pulls.map(pull => csvLine([
       pull.index + 1, round(pull.startS, 1), round(pull.endS, 1), round(pull.meanChargeTempC, 2), round(pull.peakChargeTempC, 2),

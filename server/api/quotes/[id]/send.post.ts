@@ -34,9 +34,9 @@ export default defineEventHandler(async (event) => {
         `Total: ${money(quote.totalCents)} including tax. Deposit to book the work: ${money(quote.depositCents)}.`,
         quote.validUntil ? `The quote is valid until ${formatDate(quote.validUntil)}.` : '',
         '',
-        `Open it to accept or decline, and to pay the deposit: ${appLink(`/quotes/${quote.id}`)}`,
+        `Sign in to Densitas to accept or decline it, and to pay the deposit: ${appLink(`/quotes/${quote.id}`)}`,
         '',
-        `Questions? Reply to ${workshop.name}.`,
+        `Questions? Ask ${workshop.name}.`,
       ].join('\n'),
       attachments: [{ filename, contentType: 'application/pdf', content: bytes }],
     })

@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { DYNO_STANDARDS } from '../../../analysis'
 
-const query = z.object({ standard: z.enum(DYNO_STANDARDS, { message: 'standard is one of sae-j1349-2004, sae-j1349-1990, iso-1585, din-70020' }).optional() })
+const query = z.object({ standard: z.enum(DYNO_STANDARDS, { message: 'choose one of the listed correction standards' }).optional() })
 
 // Before vs after corrected power, by the standard asked for or the workshop's own.
 export default defineEventHandler(async (event) => {
