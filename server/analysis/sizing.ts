@@ -22,6 +22,7 @@
 // 6. pressure drop ∝ ṁ²·depth/face area (common practice, no source), anchored at a reference core.
 import { compressorEfficiencyFromTemps, compressorOutletTempK, DEFAULT_COMPRESSOR_EFFICIENCY } from './compressor'
 import { KELVIN_OFFSET, R_DRY_AIR } from './constants'
+import { toSI } from '../../shared/quantities/units'
 import { dryAirDensity } from './density'
 import { calibrateUa, massFlowFromPower, massFlowSpeedDensity, predictCore } from './entu'
 import { LogImportError } from './import/errors'
@@ -277,7 +278,7 @@ export function sizeCores(input: SizingInput): SizingResult {
   if (!(calibrationRoadKmh >= 20)) {
     throw new SizingError('NO_ROAD_SPEED', `The pulls of this log average ${calibrationRoadKmh.toFixed(0)} km/h; below 20 km/h the core is cooled by the fan, not the road, and the model cannot calibrate it. Pick a log made on the road.`)
   }
-  const calibrationAirMS = calibrationRoadKmh / 3.6 * speedRatio
+  const calibrationAirMS = toSI(calibrationRoadKmh, 'km/h') * speedRatio
   const rhoLog = input.options?.coolingAirDensityKgM3 ?? dryAirDensity(baroKpa * 1000, toK(logAmbientC), R_DRY_AIR)
   const fittedFaceM2 = faceArea(input.fittedCore)
   const unreachable = () => new SizingError('NOT_CALIBRATABLE', `An effectiveness of ${effectiveness.toFixed(2)} is more than a ${input.fittedCore.faceWidthMm} × ${input.fittedCore.faceHeightMm} mm core can reach with the cooling air it gets at ${calibrationRoadKmh.toFixed(0)} km/h. Check the core recorded for this log and its sensors.`)
@@ -313,7 +314,7 @@ export function sizeCores(input: SizingInput): SizingResult {
   const ambientK = toK(design.ambientC)
   // Pressure ratio taken as manifold/barometric: intake restriction and core drop left out.
   const chargeInK = compressorOutletTempK(ambientK, boostKpa / baroKpa, eta)
-  const airMS = roadKmh / 3.6 * speedRatio
+  const airMS = toSI(roadKmh, 'km/h') * speedRatio
   const rhoDesign = input.options?.coolingAirDensityKgM3
   const predict = (core: SizingCore) => predictCore({
     ua: scaledUa(reference, core, designFlow, airMS),
