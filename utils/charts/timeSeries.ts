@@ -2,9 +2,9 @@
 // pressure and engine speed on their own axes on the right; pulls shaded, masked spans marked.
 // Pure: the same input gives the same option, so it is unit-tested without a browser.
 import type { EChartsOption, SeriesOption } from 'echarts'
-import type { PressureUnit, TemperatureUnit } from '~/stores/units'
+import type { DisplayPressureUnit, DisplayTemperatureUnit } from '#shared/quantities/display'
 import type { ChannelId, DownsampleResult, MaskSpan, PullResult, Series, SoakEvent } from '#shared/types/report'
-import { seriesValueIn, temperatureSymbol } from '../displayUnits'
+import { seriesConversion, temperatureSymbol } from '../displayUnits'
 import { CHART_FONT, CHART_PALETTE } from './palette'
 
 export interface TimeSeriesInput {
@@ -13,7 +13,7 @@ export interface TimeSeriesInput {
   masks: readonly MaskSpan[]
   /** Soak events of the drive summary: the charge air heating up while slow or stopped. */
   soakEvents?: readonly SoakEvent[]
-  units: { temperature: TemperatureUnit, pressure: PressureUnit }
+  units: { temperature: DisplayTemperatureUnit, pressure: DisplayPressureUnit }
   /** Visible window, s (dataZoom); the whole log when absent. */
   window?: { fromS: number, toS: number } | null
   animation?: boolean
@@ -41,9 +41,10 @@ export const maskLabel = (reason: MaskSpan['reason']) => MASK_WORDS[reason]
 
 /** Points of a series as [t, v] pairs in display units; null stays null so the line shows a gap. */
 export function seriesPoints(series: Series, units: TimeSeriesInput['units']): [number, number | null][] {
+  const { scale, offset } = seriesConversion(series.unit, units)
   return series.t.map((t, i) => {
     const v = series.v[i]
-    return [t, v == null ? null : round(seriesValueIn(v, series.unit, units), 2)]
+    return [t, v == null ? null : round(v * scale + offset, 2)]
   })
 }
 
