@@ -41,8 +41,11 @@ export interface ChannelSpec {
   readonly siUnit: Unit
   /** The glossary's word for it, as a screen or message names it. */
   readonly label: string
-  /** Where the sensor sits, when the name alone could be mistaken (shown in the column form). */
-  readonly where?: string
+  /**
+   * Said beside the label where the name alone could be mistaken (the column form): where the
+   * sensor sits, or whether the pressure is absolute or gauge. Charts leave it out.
+   */
+  readonly detail?: string
   /** Plausible range in SI; samples outside are treated as missing (a junk cell, not a reading). */
   readonly plausibleMin: number
   readonly plausibleMax: number
@@ -79,11 +82,11 @@ const SPECS: Readonly<Record<ValueChannelId, Omit<ChannelSpec, 'siUnit'>>> = {
   rpm: { id: 'rpm', field: 'rpm', quantity: 'rotationalSpeed', label: 'Engine speed', plausibleMin: 0, plausibleMax: 20000 },
   throttle: { id: 'throttle', field: 'throttlePct', quantity: 'percent', label: 'Throttle', plausibleMin: -5, plausibleMax: 105 },
   pedal: { id: 'pedal', field: 'pedalPct', quantity: 'percent', label: 'Accelerator pedal', plausibleMin: -5, plausibleMax: 105 },
-  manifoldPressure: { id: 'manifoldPressure', field: 'manifoldPressurePa', quantity: 'pressure', label: 'Manifold pressure (absolute)', plausibleMin: 5000, plausibleMax: 600000 },
-  boost: { id: 'boost', field: 'boostPa', quantity: 'pressure', label: 'Boost (gauge)', plausibleMin: -101325, plausibleMax: 500000 },
+  manifoldPressure: { id: 'manifoldPressure', field: 'manifoldPressurePa', quantity: 'pressure', label: 'Manifold pressure', detail: 'absolute', plausibleMin: 5000, plausibleMax: 600000 },
+  boost: { id: 'boost', field: 'boostPa', quantity: 'pressure', label: 'Boost', detail: 'gauge', plausibleMin: -101325, plausibleMax: 500000 },
   baro: { id: 'baro', field: 'baroPa', quantity: 'pressure', label: 'Barometric pressure', plausibleMin: 40000, plausibleMax: 115000 },
-  chargeTemp: { id: 'chargeTemp', field: 'chargeTempK', quantity: 'temperature', label: 'Charge temperature', where: 'after the intercooler', plausibleMin: 203.15, plausibleMax: 523.15 },
-  preCoolerTemp: { id: 'preCoolerTemp', field: 'preCoolerTempK', quantity: 'temperature', label: 'Pre-cooler temperature', where: 'before the intercooler', plausibleMin: 203.15, plausibleMax: 573.15 },
+  chargeTemp: { id: 'chargeTemp', field: 'chargeTempK', quantity: 'temperature', label: 'Charge temperature', detail: 'after the intercooler', plausibleMin: 203.15, plausibleMax: 523.15 },
+  preCoolerTemp: { id: 'preCoolerTemp', field: 'preCoolerTempK', quantity: 'temperature', label: 'Pre-cooler temperature', detail: 'before the intercooler', plausibleMin: 203.15, plausibleMax: 573.15 },
   ambientTemp: { id: 'ambientTemp', field: 'ambientTempK', quantity: 'temperature', label: 'Ambient temperature', plausibleMin: 213.15, plausibleMax: 343.15 },
   speed: { id: 'speed', field: 'speedMps', quantity: 'speed', label: 'Road speed', plausibleMin: 0, plausibleMax: 150 },
   massAirFlow: { id: 'massAirFlow', field: 'massAirFlowKgPerS', quantity: 'massFlow', label: 'Air mass flow', plausibleMin: 0, plausibleMax: 5 },
@@ -134,10 +137,10 @@ const NEEDED: ReadonlySet<ChannelId> = new Set(['time', 'chargeTemp'])
 
 /** Every channel as the column form offers it, derived from the catalogue above. */
 export const MAPPABLE_CHANNELS: readonly MappableChannel[] = FORM_ORDER.map((id) => {
-  const spec = id === 'time' ? { label: 'Time', where: undefined } : CHANNELS[id]
+  const spec = id === 'time' ? { label: 'Time', detail: undefined } : CHANNELS[id]
   return {
     id,
-    label: spec.where ? `${spec.label} (${spec.where})` : spec.label,
+    label: spec.detail ? `${spec.label} (${spec.detail})` : spec.label,
     units: allowedUnits(id),
     ...(NEEDED.has(id) ? { needed: true } : {}),
   }

@@ -1,7 +1,11 @@
 // The on-screen name of each request field, for messages a web user reads: a checked form field
 // must never come back as `vehicleId: …`. One place; fields not listed are humanised from the name.
 
+import { CHANNELS, VALUE_CHANNEL_IDS } from '../quantities/channels'
+
 const FIELD_LABELS: Record<string, string> = {
+  // A channel (a column mapping's key) by the channel catalogue's word: "chargeTemp" → "charge temperature".
+  ...Object.fromEntries(VALUE_CHANNEL_IDS.map(id => [id, CHANNELS[id].label.toLowerCase()])),
   vehicleId: 'car',
   ownerId: 'customer',
   ownerName: 'customer\'s name',
@@ -14,10 +18,7 @@ const FIELD_LABELS: Record<string, string> = {
   profileId: 'saved column profile',
   ambientC: 'ambient temperature',
   ambientTempC: 'ambient temperature',
-  ambientTemp: 'ambient temperature',
   referenceAmbientC: 'reference ambient',
-  chargeTemp: 'charge temperature',
-  preCoolerTemp: 'pre-cooler temperature',
   boostKpaAbs: 'boost (kPa abs)',
   roadSpeedKmh: 'road speed',
   targetPowerKw: 'target power',

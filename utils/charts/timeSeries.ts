@@ -3,6 +3,7 @@
 // Pure: the same input gives the same option, so it is unit-tested without a browser.
 import type { EChartsOption, SeriesOption } from 'echarts'
 import type { DisplayPressureUnit, DisplayTemperatureUnit } from '#shared/quantities/display'
+import { CHANNELS } from '#shared/quantities/channels'
 import type { ChannelId, DownsampleResult, MaskSpan, PullResult, Series, SoakEvent } from '#shared/types/report'
 import { seriesConversion, temperatureSymbol } from '../displayUnits'
 import { CHART_FONT, CHART_PALETTE } from './palette'
@@ -21,10 +22,11 @@ export interface TimeSeriesInput {
   compact?: boolean
 }
 
+// Lines are named by the channel catalogue's labels (the glossary's words).
 const TEMPERATURE_CHANNELS: Partial<Record<ChannelId, { name: string, color: string }>> = {
-  chargeTemp: { name: 'Charge temperature', color: CHART_PALETTE.charge },
-  preCoolerTemp: { name: 'Pre-cooler temperature', color: CHART_PALETTE.preCooler },
-  ambientTemp: { name: 'Ambient temperature', color: CHART_PALETTE.ambient },
+  chargeTemp: { name: CHANNELS.chargeTemp.label, color: CHART_PALETTE.charge },
+  preCoolerTemp: { name: CHANNELS.preCoolerTemp.label, color: CHART_PALETTE.preCooler },
+  ambientTemp: { name: CHANNELS.ambientTemp.label, color: CHART_PALETTE.ambient },
 }
 
 const MASK_WORDS: Record<MaskSpan['reason'], string> = {
@@ -80,10 +82,10 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
   }
   const pressure = byChannel.get('manifoldPressure') ?? byChannel.get('boost')
   if (pressure) {
-    series.push(line(pressure.channel === 'boost' ? 'Boost' : 'Manifold pressure', CHART_PALETTE.pressure, seriesPoints(pressure, units), 1, { lineStyle: { width: 1.25, color: CHART_PALETTE.pressure, type: 'dashed' } }))
+    series.push(line(CHANNELS[pressure.channel === 'boost' ? 'boost' : 'manifoldPressure'].label, CHART_PALETTE.pressure, seriesPoints(pressure, units), 1, { lineStyle: { width: 1.25, color: CHART_PALETTE.pressure, type: 'dashed' } }))
   }
   const rpm = byChannel.get('rpm')
-  if (rpm) series.push(line('Engine speed', CHART_PALETTE.rpm, seriesPoints(rpm, units), 2, { lineStyle: { width: 1, color: CHART_PALETTE.rpm, opacity: 0.7 } }))
+  if (rpm) series.push(line(CHANNELS.rpm.label, CHART_PALETTE.rpm, seriesPoints(rpm, units), 2, { lineStyle: { width: 1, color: CHART_PALETTE.rpm, opacity: 0.7 } }))
 
   // Shading rides on an empty helper series so it shows whatever lines the log has.
   series.push({

@@ -18,7 +18,7 @@ describe('the channel catalogue', () => {
       expect(channel.units).toEqual(allowedUnits(channel.id))
       if (channel.id === 'time') continue
       const spec = CHANNELS[channel.id]
-      expect(channel.label).toBe(spec.where ? `${spec.label} (${spec.where})` : spec.label)
+      expect(channel.label).toBe(spec.detail ? `${spec.label} (${spec.detail})` : spec.label)
       expect(channel.units).toEqual(UNITS[spec.quantity])
       for (const unit of channel.units) expect(isUnit(unit) && quantityOf(unit)).toBe(spec.quantity)
     }
@@ -32,6 +32,7 @@ describe('the channel catalogue', () => {
       'Pre-cooler temperature (before the intercooler)',
       'Ambient temperature',
     ])
+    expect(MAPPABLE_CHANNELS.slice(4, 6).map(c => c.label)).toEqual(['Manifold pressure (absolute)', 'Boost (gauge)'])
     expect(MAPPABLE_CHANNELS.find(c => c.id === 'speed')).toEqual({ id: 'speed', label: 'Road speed', units: ['km/h', 'mph', 'm/s'] })
   })
 

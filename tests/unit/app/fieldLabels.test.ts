@@ -8,6 +8,10 @@ describe('field names in messages a person reads', () => {
     expect(fieldLabel('fittedCoreId')).toBe('fitted core')
     expect(fieldLabel('ambientTempC')).toBe('ambient temperature')
     expect(fieldLabel('recordedOn')).toBe('day of the pulls')
+    // Channels by the channel catalogue's words (the glossary's).
+    expect(fieldLabel('chargeTemp')).toBe('charge temperature')
+    expect(fieldLabel('baro')).toBe('barometric pressure')
+    expect(fieldLabel('speed')).toBe('road speed')
   })
 
   it('spells an unlisted key out in words, without an "Id" ending', () => {
