@@ -2,10 +2,13 @@
 // must never come back as `vehicleId: …`. One place; fields not listed are humanised from the name.
 
 import { CHANNELS, VALUE_CHANNEL_IDS } from '../quantities/channels'
+import { CONDITION_BOUNDS } from './conditions'
 
 const FIELD_LABELS: Record<string, string> = {
   // A channel (a column mapping's key) by the channel catalogue's word: "chargeTemp" → "charge temperature".
   ...Object.fromEntries(VALUE_CHANNEL_IDS.map(id => [id, CHANNELS[id].label.toLowerCase()])),
+  // A log's conditions by the words the upload form uses: "baroKpa" → "barometric pressure".
+  ...Object.fromEntries(Object.entries(CONDITION_BOUNDS).map(([key, bound]) => [key, bound.label])),
   vehicleId: 'car',
   ownerId: 'customer',
   ownerName: 'customer\'s name',
@@ -17,7 +20,6 @@ const FIELD_LABELS: Record<string, string> = {
   sizingId: 'sizing',
   profileId: 'saved column profile',
   ambientC: 'ambient temperature',
-  ambientTempC: 'ambient temperature',
   referenceAmbientC: 'reference ambient',
   boostKpaAbs: 'boost (kPa abs)',
   roadSpeedKmh: 'road speed',

@@ -12,6 +12,9 @@ describe('field names in messages a person reads', () => {
     expect(fieldLabel('chargeTemp')).toBe('charge temperature')
     expect(fieldLabel('baro')).toBe('barometric pressure')
     expect(fieldLabel('speed')).toBe('road speed')
+    // A log's conditions by the upload form's words.
+    expect(fieldLabel('baroKpa')).toBe('barometric pressure')
+    expect(fieldLabel('humidityPct')).toBe('relative humidity')
   })
 
   it('spells an unlisted key out in words, without an "Id" ending', () => {
