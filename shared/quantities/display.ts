@@ -43,12 +43,12 @@ export const DISPLAY_QUANTITY_LABELS: Record<DisplayQuantity, string> = {
  */
 export const DISPLAY_BASE: { readonly [Q in DisplayQuantity]: Unit } = { temperature: 'degC', pressure: 'kPa', power: 'kW' }
 
-function unknown(quantity: DisplayQuantity, id: unknown): never {
+function unknownDisplayUnit(quantity: DisplayQuantity, id: unknown): never {
   throw new RangeError(`Unknown ${quantity} display unit "${String(id)}"; expected one of ${displayUnitIds(quantity).join(', ')}`)
 }
 
 function specOf<Q extends DisplayQuantity>(quantity: Q, id: DisplayUnit<Q>): DisplayUnitSpec {
-  return (DISPLAY_UNITS[quantity] as readonly DisplayUnitSpec[]).find(u => u.id === id) ?? unknown(quantity, id)
+  return (DISPLAY_UNITS[quantity] as readonly DisplayUnitSpec[]).find(u => u.id === id) ?? unknownDisplayUnit(quantity, id)
 }
 
 /** The ids offered for a quantity, as a non-empty list (for zod enums and selects). */
@@ -101,7 +101,7 @@ for (const quantity of DISPLAY_QUANTITIES) {
 
 /** The affine pair from the arriving unit (°C, kPa, kW) to the chosen one: shown = value · scale + offset. */
 export function displayConversion<Q extends DisplayQuantity>(quantity: Q, id: DisplayUnit<Q>): Conversion {
-  return FROM_BASE.get(`${quantity}:${id}`) ?? unknown(quantity, id)
+  return FROM_BASE.get(`${quantity}:${id}`) ?? unknownDisplayUnit(quantity, id)
 }
 
 /** A value as it arrives (°C, kPa, kW) in the chosen display unit. */
