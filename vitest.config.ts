@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url'
 import { defineConfig } from 'vitest/config'
 import { defineVitestProject } from '@nuxt/test-utils/config'
 
@@ -8,6 +9,9 @@ export default defineConfig({
   test: {
     projects: [
       {
+        // Pure helpers under utils/ import the shared catalogues as Nuxt spells them (#shared/…):
+        // a relative import from app code into shared/ breaks the server build.
+        resolve: { alias: { '#shared': fileURLToPath(new URL('./shared', import.meta.url)) } },
         test: {
           name: 'unit',
           include: ['tests/unit/**/*.test.ts'],

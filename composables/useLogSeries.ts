@@ -1,8 +1,10 @@
-import type { DownsampleResult } from '#shared/types/report'
+import type { ChannelId, DownsampleResult } from '#shared/types/report'
 
 export interface SeriesWindow { fromS: number, toS: number }
 
-const CHANNELS = 'chargeTemp,preCoolerTemp,ambientTemp,manifoldPressure,rpm'
+// The channels the time chart draws (ids of the channel catalogue, so a renamed one fails the type check).
+const CHART_CHANNELS: readonly ChannelId[] = ['chargeTemp', 'preCoolerTemp', 'ambientTemp', 'manifoldPressure', 'rpm']
+const CHANNELS = CHART_CHANNELS.join(',')
 const OVERVIEW_POINTS = 1500
 const DETAIL_POINTS = 1500
 // A window this close to the whole log gains nothing from a detail fetch.

@@ -41,7 +41,7 @@ export const users = sqliteTable('users', {
   name: text('name').notNull(),
   passwordHash: text('password_hash').notNull(),
   role: text('role', { enum: ROLES }).notNull(),
-  // Display units only; results stay SI. { temperature: 'C' | 'F', pressure: 'kPa' | 'bar' | 'psi', power: 'kW' | 'hp' | 'PS' }
+  // Display units only; results stay SI. { temperature, pressure, power }, each one of DISPLAY_UNITS (shared/quantities/display.ts).
   preferences: text('preferences', { mode: 'json' }).$type<Record<string, string>>().notNull().default({}),
   // Bumped on sign-out everywhere, password change or reset, and removal: every older session ends.
   sessionVersion: integer('session_version').notNull().default(0),

@@ -1,15 +1,14 @@
 import { defineStore } from 'pinia'
+import { displayUnitOr, type DisplayPowerUnit, type DisplayPressureUnit, type DisplayTemperatureUnit } from '#shared/quantities/display'
 
-export type TemperatureUnit = 'C' | 'F'
-export type PressureUnit = 'kPa' | 'bar' | 'psi'
-export type PowerUnit = 'kW' | 'hp' | 'PS'
-
-// Display units for this person. Results from the API are SI; these only change how they are shown.
+// Display units for this person (the choices are the unit catalogue's, shared/quantities/display.ts).
+// Results from the API are SI; these only change how they are shown.
 export const useUnitsStore = defineStore('units', () => {
   const { user } = useUserSession()
-  const temperature = ref<TemperatureUnit>((user.value?.preferences?.temperature as TemperatureUnit) ?? 'C')
-  const pressure = ref<PressureUnit>((user.value?.preferences?.pressure as PressureUnit) ?? 'kPa')
-  const power = ref<PowerUnit>((user.value?.preferences?.power as PowerUnit) ?? 'kW')
+  const saved = user.value?.preferences
+  const temperature = ref<DisplayTemperatureUnit>(displayUnitOr('temperature', saved?.temperature))
+  const pressure = ref<DisplayPressureUnit>(displayUnitOr('pressure', saved?.pressure))
+  const power = ref<DisplayPowerUnit>(displayUnitOr('power', saved?.power))
 
   async function save() {
     await $fetch('/api/me', { method: 'PATCH', body: { preferences: { temperature: temperature.value, pressure: pressure.value, power: power.value } } })

@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import type { ChannelId, ColumnInfo, DetectResponse, LogMapping, LogProfile, MappingInput } from '#shared/types/report'
-import { MAPPABLE_CHANNELS } from '#shared/types/report'
+import { MAPPABLE_CHANNELS } from '#shared/quantities/channels'
 import { conditionBoundMessage, conditionInBounds, type ConditionKey } from '#shared/utils/conditions'
 
 export interface DraftChannel {

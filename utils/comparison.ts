@@ -1,5 +1,5 @@
 // Plain-number wording of a comparison's figures (pure; the units store decides °C or °F).
-import type { TemperatureUnit } from '~/stores/units'
+import type { DisplayTemperatureUnit } from '#shared/quantities/display'
 import { formatTemperatureDifference } from './displayUnits'
 
 const minus = (text: string) => text.replace(/^-/, '−')
@@ -16,7 +16,7 @@ export function formatPoints(value: number | null | undefined, digits = 1): stri
 }
 
 /** A signed temperature change in the display unit: −18.1 → "−18.1 K". */
-export function formatSignedDifference(valueK: number | null | undefined, unit: TemperatureUnit, digits = 1): string {
+export function formatSignedDifference(valueK: number | null | undefined, unit: DisplayTemperatureUnit, digits = 1): string {
   if (valueK == null || !Number.isFinite(valueK)) return '—'
   return `${valueK > 0 ? '+' : ''}${minus(formatTemperatureDifference(valueK, unit, digits))}`
 }

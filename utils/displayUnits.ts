@@ -1,48 +1,56 @@
-// Numbers (not strings) in the person's display units, for charts and sliders. Conversions are
-// exact definitions, the same as shared/utils/format.ts.
-import type { PressureUnit, TemperatureUnit } from '~/stores/units'
+// Numbers (not strings) in the person's display units, for charts and sliders. The units and
+// their exact conversions are the unit catalogue's (shared/quantities), as in shared/utils/format.ts.
+import {
+  displaySymbol,
+  displayUnitOf,
+  fromDisplay,
+  temperatureDifferenceSymbol,
+  temperatureDifferenceToDisplay,
+  toDisplay,
+  type DisplayPressureUnit,
+  type DisplayTemperatureUnit,
+} from '#shared/quantities/display'
+import { conversionBetween, parseUnit, quantityOf, type Conversion } from '#shared/quantities/units'
 
-const KELVIN_OFFSET = 273.15
-const KPA_PER_PSI = 6.894757293168361
+export { temperatureDifferenceSymbol }
 
-export function temperatureIn(valueC: number, unit: TemperatureUnit): number {
-  return unit === 'F' ? valueC * 9 / 5 + 32 : valueC
+export function temperatureIn(valueC: number, unit: DisplayTemperatureUnit): number {
+  return toDisplay(valueC, 'temperature', unit)
 }
 
-export function temperatureFrom(value: number, unit: TemperatureUnit): number {
-  return unit === 'F' ? (value - 32) * 5 / 9 : value
+export function temperatureFrom(value: number, unit: DisplayTemperatureUnit): number {
+  return fromDisplay(value, 'temperature', unit)
 }
 
 /** A temperature difference (K) in the display unit: 1 K = 1.8 °F of difference. */
-export function temperatureDifferenceIn(valueK: number, unit: TemperatureUnit): number {
-  return unit === 'F' ? valueK * 9 / 5 : valueK
+export function temperatureDifferenceIn(valueK: number, unit: DisplayTemperatureUnit): number {
+  return temperatureDifferenceToDisplay(valueK, unit)
 }
 
-export function pressureIn(valueKpa: number, unit: PressureUnit): number {
-  if (unit === 'bar') return valueKpa / 100
-  if (unit === 'psi') return valueKpa / KPA_PER_PSI
-  return valueKpa
+export function pressureIn(valueKpa: number, unit: DisplayPressureUnit): number {
+  return toDisplay(valueKpa, 'pressure', unit)
 }
 
-export const temperatureSymbol = (unit: TemperatureUnit) => (unit === 'F' ? '°F' : '°C')
-export const temperatureDifferenceSymbol = (unit: TemperatureUnit) => (unit === 'F' ? '°F' : 'K')
+export const temperatureSymbol = (unit: DisplayTemperatureUnit) => displaySymbol('temperature', unit)
 
-export function formatTemperatureDifference(valueK: number | null | undefined, unit: TemperatureUnit, digits = 1): string {
+export function formatTemperatureDifference(valueK: number | null | undefined, unit: DisplayTemperatureUnit, digits = 1): string {
   if (valueK == null || !Number.isFinite(valueK)) return '—'
   return `${temperatureDifferenceIn(valueK, unit).toFixed(digits)} ${temperatureDifferenceSymbol(unit)}`
 }
 
+const IDENTITY: Conversion = { scale: 1, offset: 0 }
+
 /**
- * A series value as the API sends it (SI: K, Pa; or already °C / kPa) in display units.
- * The series endpoint names its unit, so the conversion follows the name, not the channel.
+ * How a series the API sends (in the unit it names: K, Pa, or already °C, kPa) reads in display
+ * units, as one affine pair for all its points: shown = value · scale + offset. The conversion
+ * follows the series' unit, not the channel; a unit that is neither a temperature nor a pressure
+ * is shown as it is.
  */
-export function seriesValueIn(value: number, seriesUnit: string, display: { temperature: TemperatureUnit, pressure: PressureUnit }): number {
-  switch (seriesUnit) {
-    case 'K': return temperatureIn(value - KELVIN_OFFSET, display.temperature)
-    case 'degC':
-    case '°C': return temperatureIn(value, display.temperature)
-    case 'Pa': return pressureIn(value / 1000, display.pressure)
-    case 'kPa': return pressureIn(value, display.pressure)
-    default: return value
-  }
+export function seriesConversion(seriesUnit: string, display: { temperature: DisplayTemperatureUnit, pressure: DisplayPressureUnit }): Conversion {
+  const unit = parseUnit(seriesUnit)
+  if (!unit) return IDENTITY
+  const quantity = quantityOf(unit)
+  if (quantity === 'temperature') return conversionBetween(unit, displayUnitOf('temperature', display.temperature))
+  if (quantity === 'pressure') return conversionBetween(unit, displayUnitOf('pressure', display.pressure))
+  return IDENTITY
 }

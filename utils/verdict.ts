@@ -2,7 +2,7 @@
 // figures a tuner wants underneath. Thresholds are our own workshop judgement (common practice,
 // no source): under ~1.5 % power lost between the coolest and hottest pull a driver will not feel
 // it; past ~4 % it shows on a dyno sheet and in the seat.
-import type { TemperatureUnit, PowerUnit } from '~/stores/units'
+import { displaySymbol, toDisplay, type DisplayPowerUnit, type DisplayTemperatureUnit } from '#shared/quantities/display'
 import type { AnalysisResult, LogVehicle } from '#shared/types/report'
 import { formatTemperatureDifference } from './displayUnits'
 
@@ -40,13 +40,15 @@ export const VERDICT_THRESHOLDS = {
 } as const
 
 export interface VerdictUnits {
-  temperature: TemperatureUnit
-  power: PowerUnit
+  temperature: DisplayTemperatureUnit
+  power: DisplayPowerUnit
 }
 
 const pct = (value: number, digits = 1) => `${value.toFixed(digits)} %`
-const KW_PER: Record<PowerUnit, number> = { kW: 1, hp: 0.74569987158227, PS: 0.73549875 }
-const powerText = (kw: number, unit: PowerUnit) => `${(kw / KW_PER[unit]).toFixed(kw / KW_PER[unit] < 10 ? 1 : 0)} ${unit}`
+function powerText(kw: number, unit: DisplayPowerUnit): string {
+  const shown = toDisplay(kw, 'power', unit)
+  return `${shown.toFixed(shown < 10 ? 1 : 0)} ${displaySymbol('power', unit)}`
+}
 const pullWord = (n: number) => (n === 1 ? 'pull' : 'pulls')
 const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve']
 const count = (n: number) => NUMBER_WORDS[n] ?? String(n)
@@ -63,7 +65,7 @@ const REASON_PLAIN: Record<string, string> = {
 }
 
 /** The drive's heat soak in plain words: temperature over ambient while moving, and the soak events. */
-export function driveWords(analysis: AnalysisResult, t: TemperatureUnit): string | null {
+export function driveWords(analysis: AnalysisResult, t: DisplayTemperatureUnit): string | null {
   const drive = analysis.drive
   if (!drive || !drive.deltaOverAmbientK) return null
   const d = drive.deltaOverAmbientK

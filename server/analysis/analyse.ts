@@ -1,9 +1,10 @@
 // From canonical channels to the analysis JSON of issue 3:
 // { summary, pulls, masks, warnings, mapping }. SI inside; °C, kPa and % only in named output fields.
 import { isaPressureAtElevationPa } from './atmosphere'
-import type { LogChannels } from './channels'
+import type { LogChannels } from '../../shared/quantities/channels'
 import { compressorOutletTempK, DEFAULT_COMPRESSOR_EFFICIENCY } from './compressor'
 import { KELVIN_OFFSET } from './constants'
+import { fromSI } from '../../shared/quantities/units'
 import { chargeDewPointC, densityRatioIsa } from './density'
 import { intercoolerEffectiveness } from './effectiveness'
 import { LogImportError } from './import/errors'
@@ -440,7 +441,7 @@ export function analyseLog(input: LogChannels | ImportedLog, options: AnalyseOpt
       powerLossVsCoolestKw: rated !== undefined ? round(rated * lossCoolest / 100, 2) : null,
       powerLossVsAmbientKw: rated !== undefined ? round(rated * lossAmbient / 100, 2) : null,
       meanRpm: orNull(pull.rpm, 0),
-      meanSpeedKmh: orNull(pull.speed * 3.6, 1),
+      meanSpeedKmh: orNull(fromSI(pull.speed, 'km/h'), 1),
       maskedFraction: round(pull.masked, 3),
       chargeDewPointC: orNull(dew, 2),
       normalisedChargeTempC: round(normalised[index]! - KELVIN_OFFSET, 2),

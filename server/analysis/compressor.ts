@@ -2,7 +2,7 @@
 // Standard ideal-gas relation, e.g. Heywood, Internal Combustion Engine Fundamentals (1988) ch. 6,
 // and Watson & Janota, Turbocharging the Internal Combustion Engine (1982); section numbers from
 // memory, the formula itself confirmed (reference sheet §4).
-import { GAMMA_AIR } from './constants'
+import { GAMMA_AIR, KELVIN_OFFSET } from './constants'
 import { impossible, requireBetween, requirePositive } from './guard'
 
 /**
@@ -38,7 +38,7 @@ export function compressorEfficiencyFromTemps(t1K: number, t2K: number, pressure
   requirePositive('The compressor inlet temperature', t1K, 'K')
   requirePositive('The pressure ratio', pressureRatio, '')
   const riseK = t2K - t1K
-  if (!(riseK > 0)) impossible(`The temperature after the compressor (${(t2K - 273.15).toFixed(1)} °C) is not above the inlet (${(t1K - 273.15).toFixed(1)} °C), so no efficiency can be worked out: is that sensor really after the compressor?`)
+  if (!(riseK > 0)) impossible(`The temperature after the compressor (${(t2K - KELVIN_OFFSET).toFixed(1)} °C) is not above the inlet (${(t1K - KELVIN_OFFSET).toFixed(1)} °C), so no efficiency can be worked out: is that sensor really after the compressor?`)
   return t1K * (temperatureRatioIsentropic(pressureRatio, gamma) - 1) / riseK
 }
 

@@ -38,8 +38,9 @@ export const T0_K = 288.15
 /** ISA sea-level density, kg/m³. ISO 2533:1975 Table 1. */
 export const RHO0_KG_M3 = 1.225
 
-/** Standard acceleration of gravity, m/s². ISO 2533:1975 Table 1. */
-export const G0_M_S2 = 9.80665
+// Standard gravity and the Celsius offset define units too (psi, PS, °C), so they live in the
+// unit catalogue; the engine keeps importing them from here.
+export { G0_M_S2, KELVIN_OFFSET } from '../../shared/quantities/units'
 
 /** Tropospheric temperature lapse rate, K/m (temperature falls with height). ISO 2533 Table 4. */
 export const LAPSE_RATE_K_M = 0.0065
@@ -58,6 +59,3 @@ export const EARTH_RADIUS_M = 6356766
  * varies by about 0.5 % between 0 and 130 °C, which is below the other uncertainties here.
  */
 export const CP_AIR = 1005
-
-/** °C ↔ K offset (exact by definition of the Celsius scale). */
-export const KELVIN_OFFSET = 273.15

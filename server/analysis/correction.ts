@@ -15,7 +15,7 @@
 // compressor inlet), not the post-intercooler charge temperature.
 import { KELVIN_OFFSET } from './constants'
 import { saturationVapourPressurePa } from './density'
-import { INHG_PA } from './units'
+import { INHG_PA, toSI } from '../../shared/quantities/units'
 
 export interface AtmosphereInput {
   /** barometric (total) pressure, Pa */
@@ -257,7 +257,7 @@ export function saeJ607(input: AtmosphereInput): CorrectionResult {
   const pd = dryPressureKpa(input)
   return finish(input, {
     standard: 'SAE J607',
-    factor: (29.92 * INHG_PA / 1000 / pd) * Math.sqrt(input.intakeTempK / (519.67 * 5 / 9)),
+    factor: (29.92 * INHG_PA / 1000 / pd) * Math.sqrt(input.intakeTempK / toSI(60, 'degF')),
     pressureKpa: pd,
     notes: [...humidityNotes(input), 'Obsolete standard; no validity band known.'],
     provenance: 'Formula from memory; reference 29.92 inHg dry, 60 °F.',

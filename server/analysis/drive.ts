@@ -2,14 +2,15 @@
 // ambient while moving, at cruise and under boost, and the soak events — the charge temperature
 // climbing while the car is slow or stopped (traffic, a pit lane) — with how fast it comes back
 // down once moving again.
-import type { LogChannels } from './channels'
+import type { LogChannels } from '../../shared/quantities/channels'
+import { toSI } from '../../shared/quantities/units'
 
 // Thresholds are workshop judgement (common practice, no source).
 export const DRIVE_RULES = {
   /** Road speed at or above this is moving, m/s (5 km/h). */
-  movingMps: 5 / 3.6,
+  movingMps: toSI(5, 'km/h'),
   /** Below this the car is slow (traffic, a pit lane), m/s (10 km/h). */
-  slowMps: 10 / 3.6,
+  slowMps: toSI(10, 'km/h'),
   /** Gauge boost at or above this is "under boost", Pa. */
   boostedPa: 20_000,
   /** A slow stretch must last this long to soak, s. */

@@ -1,8 +1,8 @@
 // Public entry of the analysis engine (framework-free): physics, import, analysis, series, demo.
 // Routes, the seed, the command line and the tests import from here.
 export * from './physics'
-export { CHANNELS, CHANNEL_IDS, VALUE_CHANNEL_IDS, TIME_FORMATS, channelData, allowedUnits, isChannelId } from './channels'
-export type { ChannelId, ValueChannelId, LogChannels, TimeFormat, ChannelSpec } from './channels'
+export { CHANNELS, CHANNEL_IDS, VALUE_CHANNEL_IDS, TIME_FORMATS, channelData, allowedUnits, isChannelId } from '../../shared/quantities/channels'
+export type { ChannelId, ValueChannelId, LogChannels, TimeFormat, ChannelSpec } from '../../shared/quantities/channels'
 export { LogImportError, isLogImportError, LOG_IMPORT_ERROR_CODES } from './import/errors'
 export type { LogImportErrorCode, LogImportErrorDetails } from './import/errors'
 export { importLog, listDrives, previewColumns, headerSignature, DEFAULT_MAX_ROWS, DEFAULT_STALE_LIMIT_S } from './import/importer'

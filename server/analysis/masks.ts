@@ -2,7 +2,7 @@
 // intake sensor cook in the hot engine bay (the real diesel log shows 115–140 °C while stopped)
 // and, after restart, cold air rushing past a sensor that was heat-soaked reads far below ambient
 // for half a minute or so. Both are sensor artefacts, not charge-air temperatures.
-import type { LogChannels } from './channels'
+import type { LogChannels } from '../../shared/quantities/channels'
 
 export const MASK_REASONS = ['engine-off', 'restart-settle', 'sensor-dropout', 'temp-spike', 'temp-step', 'below-ambient', 'clipped'] as const
 export type MaskReason = typeof MASK_REASONS[number]

@@ -1,7 +1,7 @@
 // Barrel of the physics half of the analysis engine (framework-free). The import/pull/soak half
 // and `index.ts` are maintained separately.
 export * from './constants'
-export * from './units'
+export * from '../../shared/quantities/units'
 export * from './atmosphere'
 export * from './density'
 export * from './compressor'

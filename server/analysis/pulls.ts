@@ -1,7 +1,7 @@
 // Pull detection: spans at (nearly) full load held long enough for the intercooler to matter.
 // The pedal is used when the log has it: a diesel's throttle flap sits near 83 % while running
 // and never marks a pull, and a petrol throttle may be opened by the ECU for other reasons.
-import type { LogChannels } from './channels'
+import type { LogChannels } from '../../shared/quantities/channels'
 import { lowerBound, withDefaults } from './masks'
 import { LogImportError } from './import/errors'
 

@@ -5,8 +5,8 @@
 // - 'lttb': Largest-Triangle-Three-Buckets (S. Steinarsson, "Downsampling Time Series for Visual
 //   Representation", MSc thesis, University of Iceland, 2013), visually faithful for smooth data.
 // Values stay in SI (the unit is named); display units are chosen at the edge.
-import { CHANNELS, channelData } from './channels'
-import type { ChannelId, LogChannels } from './channels'
+import { CHANNELS, channelData } from '../../shared/quantities/channels'
+import type { ChannelId, LogChannels } from '../../shared/quantities/channels'
 import { LogImportError } from './import/errors'
 import { lowerBound } from './masks'
 

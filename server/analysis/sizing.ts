@@ -33,6 +33,7 @@
 // face, warmed cooling air, heat picked up after the core — is what keeps real cores lower.
 import { compressorEfficiencyFromTemps, compressorOutletTempK, DEFAULT_COMPRESSOR_EFFICIENCY } from './compressor'
 import { KELVIN_OFFSET, R_DRY_AIR } from './constants'
+import { toSI } from '../../shared/quantities/units'
 import { dryAirDensity } from './density'
 import { calibrateUa, massFlowFromPower, massFlowSpeedDensity, predictCore } from './entu'
 import { LogImportError } from './import/errors'
@@ -314,7 +315,7 @@ export function sizeCores(input: SizingInput): SizingResult {
   if (!(calibrationRoadKmh >= 20)) {
     throw new SizingError('NO_ROAD_SPEED', `The pulls of this log average ${calibrationRoadKmh.toFixed(0)} km/h; below 20 km/h the core is cooled by the fan, not the road, and the model cannot calibrate it. Pick a log made on the road.`)
   }
-  const calibrationAirMS = calibrationRoadKmh / 3.6 * speedRatio
+  const calibrationAirMS = toSI(calibrationRoadKmh, 'km/h') * speedRatio
   // Step 7: the log read the installed core; the ideal core behind it did better by the ceiling.
   const baseCeiling = input.options?.effectivenessCeiling ?? ROAD_EFFECTIVENESS_CEILING
   const ceiling = Math.min(1, Math.max(baseCeiling, effectiveness + CEILING_MARGIN))
@@ -354,7 +355,7 @@ export function sizeCores(input: SizingInput): SizingResult {
   const ambientK = toK(design.ambientC)
   // Pressure ratio taken as manifold/barometric: intake restriction and core drop left out.
   const chargeInK = compressorOutletTempK(ambientK, boostKpa / baroKpa, eta)
-  const airMS = roadKmh / 3.6 * speedRatio
+  const airMS = toSI(roadKmh, 'km/h') * speedRatio
   const rhoDesign = input.options?.coolingAirDensityKgM3
   const predict = (core: SizingCore) => {
     const ideal = predictCore({

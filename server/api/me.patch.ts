@@ -1,12 +1,17 @@
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
+import { DISPLAY_QUANTITY_LABELS, displayChoicesText, displayUnitIds, type DisplayQuantity } from '#shared/quantities/display'
+
+// The display units the unit catalogue offers, and only those.
+const displayUnit = <Q extends DisplayQuantity>(quantity: Q) =>
+  z.enum(displayUnitIds(quantity), { message: `the ${DISPLAY_QUANTITY_LABELS[quantity].toLowerCase()} unit must be ${displayChoicesText(quantity)}` }).optional()
 
 const body = z.object({
   name: z.string().trim().min(1, 'enter your name').max(120, 'keep your name under 120 characters').optional(),
   preferences: z.object({
-    temperature: z.enum(['C', 'F']).optional(),
-    pressure: z.enum(['kPa', 'bar', 'psi']).optional(),
-    power: z.enum(['kW', 'hp', 'PS']).optional(),
+    temperature: displayUnit('temperature'),
+    pressure: displayUnit('pressure'),
+    power: displayUnit('power'),
   }).strict().optional(),
 }).strict()
 

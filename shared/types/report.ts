@@ -3,7 +3,7 @@
 // server reaches the client bundle, and the client cannot drift from the engine's JSON.
 // Values stay SI (°C, K, kPa, kW, %); display units are chosen at the edge by the units store.
 
-import type { AnalysisResult, ChannelId, ColumnPreview, MappingInput } from '../../server/analysis'
+import type { AnalysisResult, ColumnPreview, MappingInput } from '../../server/analysis'
 
 export type {
   AnalysisResult,
@@ -76,27 +76,4 @@ export interface SharedReport {
   vehicleDescription: string
   log: { notes: string, createdAt: string, recordedOn?: string | null } & { vehicle: Pick<LogVehicle, 'ratedPowerKw' | 'fuel'> }
   analysis: AnalysisResult
-}
-
-/** Canonical channels offered in the mapping form, in the order a person thinks of them. */
-export const MAPPABLE_CHANNELS: readonly { id: ChannelId, label: string, units: readonly string[], needed?: boolean }[] = [
-  { id: 'time', label: 'Time', units: ['s', 'ms', 'clock', 'hms'], needed: true },
-  { id: 'chargeTemp', label: 'Charge temperature (after the intercooler)', units: ['degC', 'degF', 'K'], needed: true },
-  { id: 'preCoolerTemp', label: 'Pre-cooler temperature (before the intercooler)', units: ['degC', 'degF', 'K'] },
-  { id: 'ambientTemp', label: 'Ambient temperature', units: ['degC', 'degF', 'K'] },
-  { id: 'manifoldPressure', label: 'Boost, absolute (manifold pressure)', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
-  { id: 'boost', label: 'Boost, gauge (above barometric pressure)', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
-  { id: 'baro', label: 'Barometric pressure', units: ['kPa', 'hPa', 'mbar', 'bar', 'psi', 'inHg', 'Pa'] },
-  { id: 'rpm', label: 'Engine speed', units: ['rpm'] },
-  { id: 'pedal', label: 'Accelerator pedal', units: ['%'] },
-  { id: 'throttle', label: 'Throttle', units: ['%'] },
-  { id: 'speed', label: 'Road speed', units: ['km/h', 'mph', 'm/s'] },
-  { id: 'massAirFlow', label: 'Air mass flow', units: ['g/s', 'kg/h', 'lb/min', 'kg/s'] },
-  { id: 'humidity', label: 'Relative humidity', units: ['%'] },
-  { id: 'engineLoad', label: 'Calculated engine load', units: ['%'] },
-]
-
-/** How a unit code reads on screen. */
-export const UNIT_LABELS: Record<string, string> = {
-  degC: '°C', degF: '°F', K: 'K', s: 'seconds', ms: 'milliseconds', clock: 'time of day', hms: 'h:mm:ss elapsed',
 }

@@ -2,6 +2,7 @@
 // or given as a fixed value in a column mapping), so the form, the routes and the engine agree.
 // The ranges are generous for where a car can be driven (common practice, no source):
 // −40…60 °C ambient, −500…6000 m site altitude, 50…110 kPa barometric pressure.
+import { fromSI } from '../quantities/units'
 
 export interface ConditionBound {
   min: number
@@ -26,8 +27,8 @@ export type ConditionKey = keyof typeof CONDITION_BOUNDS
  * whose bounds apply and how to turn an SI value (K, Pa, %) into that condition's unit.
  */
 export const FIXED_VALUE_BOUNDS = {
-  ambientTemp: { condition: 'ambientTempC', fromSI: (kelvin: number) => kelvin - 273.15 },
-  baro: { condition: 'baroKpa', fromSI: (pascal: number) => pascal / 1000 },
+  ambientTemp: { condition: 'ambientTempC', fromSI: (kelvin: number) => fromSI(kelvin, 'degC') },
+  baro: { condition: 'baroKpa', fromSI: (pascal: number) => fromSI(pascal, 'kPa') },
   humidity: { condition: 'humidityPct', fromSI: (percent: number) => percent },
 } as const satisfies Record<string, { condition: ConditionKey, fromSI: (value: number) => number }>
 

@@ -1,10 +1,17 @@
 // The on-screen name of each request field, for messages a web user reads: a checked form field
 // must never come back as `vehicleId: …`. One place; fields not listed are humanised from the name.
 
+import { CHANNELS, VALUE_CHANNEL_IDS } from '../quantities/channels'
+import { CONDITION_BOUNDS } from './conditions'
+
 const FIELD_LABELS: Record<string, string> = {
   // The route's id and a token both come from a link a person opened.
   id: 'link',
   token: 'link',
+  // A channel (a column mapping's key) by the channel catalogue's word: "chargeTemp" → "charge temperature".
+  ...Object.fromEntries(VALUE_CHANNEL_IDS.map(id => [id, CHANNELS[id].label.toLowerCase()])),
+  // A log's conditions by the words the upload form uses: "baroKpa" → "barometric pressure".
+  ...Object.fromEntries(Object.entries(CONDITION_BOUNDS).map(([key, bound]) => [key, bound.label])),
   vehicleId: 'car',
   ownerId: 'customer',
   ownerName: 'customer\'s name',
@@ -16,11 +23,7 @@ const FIELD_LABELS: Record<string, string> = {
   sizingId: 'sizing',
   profileId: 'log profile',
   ambientC: 'ambient temperature',
-  ambientTempC: 'ambient temperature',
-  ambientTemp: 'ambient temperature',
   referenceAmbientC: 'reference ambient',
-  chargeTemp: 'charge temperature',
-  preCoolerTemp: 'pre-cooler temperature',
   boostKpaAbs: 'boost (kPa abs)',
   roadSpeedKmh: 'road speed',
   targetPowerKw: 'target power',
@@ -47,14 +50,10 @@ const FIELD_LABELS: Record<string, string> = {
   workshopName: 'workshop name',
   pageSize: 'page size',
   degC: '°C',
-  altitudeM: 'site altitude',
-  baroKpa: 'barometric pressure',
-  humidityPct: 'relative humidity',
   taxRatePct: 'tax rate',
   depositPct: 'deposit',
   powerKw: 'measured power',
   torqueNm: 'torque',
-  rpm: 'engine speed',
   priceCents: 'sell price',
   costCents: 'cost',
   faceWidthMm: 'face width',

@@ -1,25 +1,21 @@
-// Display formatting at the edge. Values arrive in SI (°C for temperatures shown to people,
-// kPa for pressures, kW for power); the conversions are exact definitions (see physics notes).
+// Display formatting at the edge. Values arrive as the API sends them to people (°C for
+// temperatures, kPa for pressures, kW for power); the display units and their exact conversions
+// are the unit catalogue's (shared/quantities/display.ts), the same factors the engine imports with.
+import { displayExtraDigits, displaySymbol, toDisplay, type DisplayPowerUnit, type DisplayPressureUnit, type DisplayTemperatureUnit } from '../quantities/display'
 
-export function formatTemperature(valueC: number | null | undefined, unit: 'C' | 'F' = 'C', digits = 1) {
+export function formatTemperature(valueC: number | null | undefined, unit: DisplayTemperatureUnit = 'C', digits = 1) {
   if (valueC == null || !Number.isFinite(valueC)) return '—'
-  return unit === 'F' ? `${(valueC * 9 / 5 + 32).toFixed(digits)} °F` : `${valueC.toFixed(digits)} °C`
+  return `${toDisplay(valueC, 'temperature', unit).toFixed(digits)} ${displaySymbol('temperature', unit)}`
 }
 
-// 1 psi = 6.894757293168361 kPa (exact from the pound and inch definitions).
-export function formatPressure(valueKpa: number | null | undefined, unit: 'kPa' | 'bar' | 'psi' = 'kPa', digits = 1) {
+export function formatPressure(valueKpa: number | null | undefined, unit: DisplayPressureUnit = 'kPa', digits = 1) {
   if (valueKpa == null || !Number.isFinite(valueKpa)) return '—'
-  if (unit === 'bar') return `${(valueKpa / 100).toFixed(digits + 1)} bar`
-  if (unit === 'psi') return `${(valueKpa / 6.894757293168361).toFixed(digits)} psi`
-  return `${valueKpa.toFixed(digits)} kPa`
+  return `${toDisplay(valueKpa, 'pressure', unit).toFixed(digits + displayExtraDigits('pressure', unit))} ${displaySymbol('pressure', unit)}`
 }
 
-// 1 hp (mechanical) = 745.69987158227 W; 1 PS = 735.49875 W.
-export function formatPower(valueKw: number | null | undefined, unit: 'kW' | 'hp' | 'PS' = 'kW', digits = 0) {
+export function formatPower(valueKw: number | null | undefined, unit: DisplayPowerUnit = 'kW', digits = 0) {
   if (valueKw == null || !Number.isFinite(valueKw)) return '—'
-  if (unit === 'hp') return `${(valueKw * 1000 / 745.69987158227).toFixed(digits)} hp`
-  if (unit === 'PS') return `${(valueKw * 1000 / 735.49875).toFixed(digits)} PS`
-  return `${valueKw.toFixed(digits)} kW`
+  return `${toDisplay(valueKw, 'power', unit).toFixed(digits)} ${displaySymbol('power', unit)}`
 }
 
 export function formatMoney(cents: number | null | undefined, currency: string) {

@@ -234,6 +234,17 @@ describe('PATCH /api/logs/:id', () => {
     expect(reply.body.conditions.ambientTempC).toBe(30)
   })
 
+  it('refuses conditions outside the upload form\'s bounds, in the same words, and changes nothing', async () => {
+    const before = await clients.tuner.get<Detail>(`/api/logs/${tunerLog}`)
+    const hot = await clients.tuner.patch<{ message: string }>(`/api/logs/${tunerLog}`, { ambientTempC: 80 })
+    expect(hot.status).toBe(400)
+    expect(hot.body.message).toBe('Please check the form — The ambient temperature must be between −40 and 60 °C. Correct it and try again.')
+    const low = await clients.tuner.patch<{ message: string }>(`/api/logs/${tunerLog}`, { baroKpa: 20 })
+    expect(low.status).toBe(400)
+    expect(low.body.message).toBe('Please check the form — The barometric pressure must be between 50 and 110 kPa. Correct it and try again.')
+    expect((await clients.tuner.get<Detail>(`/api/logs/${tunerLog}`)).body.conditions).toEqual(before.body.conditions)
+  })
+
   it('refuses a pull edit outside the log and changes nothing', async () => {
     const before = await clients.tuner.get(`/api/logs/${tunerLog}/analysis`)
     const reply = await clients.tuner.patch<{ message: string }>(`/api/logs/${tunerLog}`, { pullEdits: { remove: [99] } })

@@ -2,7 +2,7 @@
 // effectiveness) and the charge temperature both cores would give at the reference ambient.
 // Pure and unit-tested; the component only binds the option.
 import type { EChartsOption } from 'echarts'
-import type { TemperatureUnit } from '~/stores/units'
+import type { DisplayTemperatureUnit } from '#shared/quantities/display'
 import type { ComparedPull, SideSummary } from '#shared/types/comparison'
 import { temperatureDifferenceIn, temperatureDifferenceSymbol, temperatureIn, temperatureSymbol } from '../displayUnits'
 import { CHART_FONT, CHART_PALETTE } from './palette'
@@ -17,7 +17,7 @@ const round1 = (value: number) => Math.round(value * 10) / 10
 export interface OverlayInput {
   pulls: readonly PullPoint[]
   quantity: 'delta' | 'effectiveness'
-  temperature: TemperatureUnit
+  temperature: DisplayTemperatureUnit
   animation?: boolean
 }
 
@@ -60,7 +60,7 @@ export interface ReferenceInput {
   before: Pick<SideSummary, 'chargeTempAtReferenceC' | 'ambientTempC' | 'meanChargeTempC'>
   after: Pick<SideSummary, 'chargeTempAtReferenceC' | 'ambientTempC' | 'meanChargeTempC'>
   referenceAmbientC: number
-  temperature: TemperatureUnit
+  temperature: DisplayTemperatureUnit
   animation?: boolean
 }
 

@@ -1,14 +1,14 @@
 // Per-pull bars: how far the charge air sat above the ambient temperature, and how well the intercooler
 // pulled it back towards ambient (effectiveness). Pure and unit-tested.
 import type { EChartsOption } from 'echarts'
-import type { TemperatureUnit } from '~/stores/units'
+import type { DisplayTemperatureUnit } from '#shared/quantities/display'
 import type { PullResult } from '#shared/types/report'
 import { temperatureDifferenceIn, temperatureDifferenceSymbol } from '../displayUnits'
 import { CHART_FONT, CHART_PALETTE } from './palette'
 
 export interface PullBarsInput {
   pulls: readonly Pick<PullResult, 'index' | 'meanDeltaOverAmbientK' | 'effectiveness' | 'effectivenessSource'>[]
-  temperature: TemperatureUnit
+  temperature: DisplayTemperatureUnit
   animation?: boolean
 }
 

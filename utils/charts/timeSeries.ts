@@ -2,9 +2,10 @@
 // pressure and engine speed on their own axes on the right; pulls shaded, masked spans marked.
 // Pure: the same input gives the same option, so it is unit-tested without a browser.
 import type { EChartsOption, SeriesOption } from 'echarts'
-import type { PressureUnit, TemperatureUnit } from '~/stores/units'
+import type { DisplayPressureUnit, DisplayTemperatureUnit } from '#shared/quantities/display'
+import { CHANNELS } from '#shared/quantities/channels'
 import type { ChannelId, DownsampleResult, MaskSpan, PullResult, Series, SoakEvent } from '#shared/types/report'
-import { seriesValueIn, temperatureSymbol } from '../displayUnits'
+import { seriesConversion, temperatureSymbol } from '../displayUnits'
 import { CHART_FONT, CHART_PALETTE } from './palette'
 
 export interface TimeSeriesInput {
@@ -13,7 +14,7 @@ export interface TimeSeriesInput {
   masks: readonly MaskSpan[]
   /** Soak events of the drive summary: the charge air heating up while slow or stopped. */
   soakEvents?: readonly SoakEvent[]
-  units: { temperature: TemperatureUnit, pressure: PressureUnit }
+  units: { temperature: DisplayTemperatureUnit, pressure: DisplayPressureUnit }
   /** Visible window, s (dataZoom); the whole log when absent. */
   window?: { fromS: number, toS: number } | null
   animation?: boolean
@@ -21,10 +22,11 @@ export interface TimeSeriesInput {
   compact?: boolean
 }
 
+// Lines are named by the channel catalogue's labels (the glossary's words).
 const TEMPERATURE_CHANNELS: Partial<Record<ChannelId, { name: string, color: string }>> = {
-  chargeTemp: { name: 'Charge temperature', color: CHART_PALETTE.charge },
-  preCoolerTemp: { name: 'Pre-cooler temperature', color: CHART_PALETTE.preCooler },
-  ambientTemp: { name: 'Ambient temperature', color: CHART_PALETTE.ambient },
+  chargeTemp: { name: CHANNELS.chargeTemp.label, color: CHART_PALETTE.charge },
+  preCoolerTemp: { name: CHANNELS.preCoolerTemp.label, color: CHART_PALETTE.preCooler },
+  ambientTemp: { name: CHANNELS.ambientTemp.label, color: CHART_PALETTE.ambient },
 }
 
 const MASK_WORDS: Record<MaskSpan['reason'], string> = {
@@ -41,9 +43,10 @@ export const maskLabel = (reason: MaskSpan['reason']) => MASK_WORDS[reason]
 
 /** Points of a series as [t, v] pairs in display units; null stays null so the line shows a gap. */
 export function seriesPoints(series: Series, units: TimeSeriesInput['units']): [number, number | null][] {
+  const { scale, offset } = seriesConversion(series.unit, units)
   return series.t.map((t, i) => {
     const v = series.v[i]
-    return [t, v == null ? null : round(seriesValueIn(v, series.unit, units), 2)]
+    return [t, v == null ? null : round(v * scale + offset, 2)]
   })
 }
 
@@ -82,7 +85,7 @@ export function timeSeriesOption(input: TimeSeriesInput): EChartsOption {
     series.push(line(pressure.channel === 'boost' ? 'Boost (gauge)' : 'Boost (absolute)', CHART_PALETTE.pressure, seriesPoints(pressure, units), 1, { lineStyle: { width: 1.25, color: CHART_PALETTE.pressure, type: 'dashed' } }))
   }
   const rpm = byChannel.get('rpm')
-  if (rpm) series.push(line('Engine speed', CHART_PALETTE.rpm, seriesPoints(rpm, units), 2, { lineStyle: { width: 1, color: CHART_PALETTE.rpm, opacity: 0.7 } }))
+  if (rpm) series.push(line(CHANNELS.rpm.label, CHART_PALETTE.rpm, seriesPoints(rpm, units), 2, { lineStyle: { width: 1, color: CHART_PALETTE.rpm, opacity: 0.7 } }))
 
   // Shading rides on an empty helper series so it shows whatever lines the log has.
   series.push({

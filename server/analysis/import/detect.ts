@@ -2,9 +2,9 @@
 // header line, units in header names, units glued to values and the time format. Pure string
 // work (no Node APIs) so the same rules can run wherever the sample is read.
 import Papa from 'papaparse'
-import { parseUnit } from '../units'
-import type { Unit } from '../units'
-import type { TimeFormat } from '../channels'
+import { parseUnit } from '../../../shared/quantities/units'
+import type { Unit } from '../../../shared/quantities/units'
+import type { TimeFormat } from '../../../shared/quantities/channels'
 import { LogImportError } from './errors'
 
 export type Delimiter = ',' | ';' | '\t'

@@ -1,9 +1,10 @@
 // One file, several drives: the parser marks where time runs backwards or jumps (see
 // `DRIVE_BREAK` in parse.ts); here those breaks become drives the user can pick from, and one
 // drive is cut out of the joined arrays with its own time starting at zero.
-import { CHANNELS, VALUE_CHANNEL_IDS } from '../channels'
-import type { LogChannels } from '../channels'
+import { CHANNELS, VALUE_CHANNEL_IDS } from '../../../shared/quantities/channels'
+import type { LogChannels } from '../../../shared/quantities/channels'
 import { KELVIN_OFFSET } from '../constants'
+import { fromSI } from '../../../shared/quantities/units'
 import type { DriveBreak } from './parse'
 
 /** Drives shorter than this are fragments (a stray row, a logger hiccup), not drives (common practice, no source). */
@@ -84,7 +85,7 @@ function rangeMinMax(values: Float32Array | undefined, from: number, to: number)
 export function describeDrive(channels: LogChannels, from: number, to: number): string {
   const parts: string[] = []
   const [, speed] = rangeMinMax(channels.speedMps, from, to)
-  if (Number.isFinite(speed)) parts.push(speed < 1 ? 'standing still' : `road speed up to ${Math.round(speed * 3.6)} km/h`)
+  if (Number.isFinite(speed)) parts.push(speed < 1 ? 'standing still' : `road speed up to ${Math.round(fromSI(speed, 'km/h'))} km/h`)
   const [, map] = rangeMinMax(channels.manifoldPressurePa, from, to)
   if (Number.isFinite(map)) parts.push(`boost up to ${Math.round(map / 1000)} kPa abs`)
   const [cMin, cMax] = rangeMinMax(channels.chargeTempK, from, to)

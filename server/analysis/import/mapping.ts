@@ -1,11 +1,11 @@
 // Column → channel mapping: automatic (by header name, unit and value range, with a confidence)
 // and explicit (the mapping JSON of issue 3, which always wins). The words matched here are
 // generic engineering terms in English and German, not any logging program's labels.
-import { CHANNEL_IDS, CHANNELS, TIME_FORMATS, allowedUnits, isChannelId } from '../channels'
-import type { ChannelId, TimeFormat, ValueChannelId } from '../channels'
+import { CHANNEL_IDS, CHANNELS, TIME_FORMATS, allowedUnits, isChannelId } from '../../../shared/quantities/channels'
+import type { ChannelId, TimeFormat, ValueChannelId } from '../../../shared/quantities/channels'
 import { FIXED_VALUE_BOUNDS, conditionBoundMessage, conditionInBounds } from '../../../shared/utils/conditions'
-import { conversionFor, isUnit, quantityOf, toSI } from '../units'
-import type { Unit } from '../units'
+import { conversionFor, isUnit, quantityOf, toSI } from '../../../shared/quantities/units'
+import type { Unit } from '../../../shared/quantities/units'
 import type { ColumnInfo } from './detect'
 import { guessNumericTimeFormat } from './detect'
 import { LogImportError } from './errors'

@@ -2,17 +2,21 @@ import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 import type { AnalysisResult, PullEdits } from '../../analysis'
 
-const nullableNumber = (label: string, min: number, max: number, unit: string) =>
-  z.number({ message: `${label} must be a number` }).min(min, `${label} must be between ${min} and ${max} ${unit}`).max(max, `${label} must be between ${min} and ${max} ${unit}`).nullable().optional()
+// The same bounds and words as the upload form's (shared/utils/conditions.ts); null clears a value.
+const condition = (key: ConditionKey) => {
+  const { min, max, label } = CONDITION_BOUNDS[key]
+  const range = conditionBoundMessage(key)
+  return z.number({ message: `the ${label} must be a number` }).min(min, range).max(max, range).nullable().optional()
+}
 
 const window = z.object({ startS: z.number().min(0), endS: z.number().min(0) }).refine(w => w.endS > w.startS, 'a pull ends after it starts')
 
 const body = z.object({
   notes: z.string().max(5000).optional(),
-  ambientTempC: nullableNumber('Ambient temperature', -40, 60, '°C'),
-  altitudeM: nullableNumber('Site altitude', -500, 6000, 'm'),
-  baroKpa: nullableNumber('Barometric pressure', 50, 110, 'kPa'),
-  humidityPct: nullableNumber('Relative humidity', 0, 100, '%'),
+  ambientTempC: condition('ambientTempC'),
+  altitudeM: condition('altitudeM'),
+  baroKpa: condition('baroKpa'),
+  humidityPct: condition('humidityPct'),
   pullEdits: z.object({
     add: z.array(window).max(50).optional(),
     remove: z.array(z.number().int().min(0)).max(200).optional(),

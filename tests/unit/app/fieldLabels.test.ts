@@ -12,6 +12,10 @@ describe('field names in messages a person reads', () => {
     // conditions and a dyno run alike.
     expect(fieldLabel('baroKpa')).toBe('barometric pressure')
     expect(fieldLabel('humidityPct')).toBe('relative humidity')
+    // Channels by the channel catalogue's words (the glossary's).
+    expect(fieldLabel('chargeTemp')).toBe('charge temperature')
+    expect(fieldLabel('baro')).toBe('barometric pressure')
+    expect(fieldLabel('speed')).toBe('road speed')
     expect(fieldLabel('altitudeM')).toBe('site altitude')
   })
 

@@ -5,8 +5,8 @@ import { analyseSample } from '../../../server/analysis/import/detect'
 import { parseBytesFast, parseTextWithPapa } from '../../../server/analysis/import/parse'
 import type { ParsePlan } from '../../../server/analysis/import/parse'
 import { resolveMapping } from '../../../server/analysis/import/mapping'
-import type { ValueChannelId } from '../../../server/analysis/channels'
-import type { Unit } from '../../../server/analysis/units'
+import type { ValueChannelId } from '../../../shared/quantities/channels'
+import type { Unit } from '../../../shared/quantities/units'
 
 function planFor(text: string): ParsePlan {
   const sample = analyseSample(text, 'utf-8', false, true)

@@ -17,7 +17,7 @@ import {
   toSIInPlace,
   UNITS,
   type Unit,
-} from '../../../server/analysis/physics'
+} from '../../../shared/quantities/units'
 
 const rel = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected)
 

@@ -1,4 +1,7 @@
-// Unit conversion to and from SI for logger columns and user input.
+// The unit catalogue: every unit Densitas reads or shows, the quantity it measures, and its exact
+// conversion to SI. One catalogue for the analysis engine (logger columns, user input), the server
+// (validation) and the pages (display units, shared/quantities/display.ts). Plain TypeScript with
+// relative imports only, so the engine, its worker bundle and the command-line scripts load it too.
 //
 // Every conversion is affine: si = value · scale + offset. Callers that convert a whole column
 // (millions of samples) fetch the pair once with `conversionFor(unit)` and run one multiply-add
@@ -7,7 +10,12 @@
 // Factors are built from exact definitions (international pound 0.453 592 37 kg, inch 0.0254 m,
 // standard gravity 9.806 65 m/s²), so they are exact to double precision. The unit tests cross-check
 // them against mathjs `unit()` wherever mathjs knows the unit.
-import { G0_M_S2, KELVIN_OFFSET } from './constants'
+
+/** Standard acceleration of gravity, m/s² (exact by definition, 3rd CGPM 1901; ISO 2533:1975 Table 1). */
+export const G0_M_S2 = 9.80665
+
+/** °C ↔ K offset (exact by definition of the Celsius scale). */
+export const KELVIN_OFFSET = 273.15
 
 /** Units offered per physical quantity (for unit selectors and mapping validation). */
 export const UNITS = {
@@ -31,7 +39,7 @@ export type TimeUnit = typeof UNITS.time[number]
 export type Unit = typeof UNITS[Quantity][number]
 
 /** The unit every quantity is stored in inside the analysis (SI, except % and rpm kept as is). */
-export const SI_UNIT: Record<Quantity, string> = {
+export const SI_UNIT: Readonly<Record<Quantity, Unit>> = {
   temperature: 'K',
   pressure: 'Pa',
   speed: 'm/s',
@@ -140,12 +148,41 @@ export function fromSI(valueSI: number, unit: Unit): number {
   return (valueSI - offset) / scale
 }
 
-/** Convert between two units of the same quantity. */
-export function convert(value: number, from: Unit, to: Unit): number {
+function sameQuantity(from: Unit, to: Unit): void {
   if (quantityOf(from) !== quantityOf(to)) {
     throw new RangeError(`Cannot convert ${from} (${quantityOf(from)}) to ${to} (${quantityOf(to)})`)
   }
+}
+
+/** Convert between two units of the same quantity. */
+export function convert(value: number, from: Unit, to: Unit): number {
+  sameQuantity(from, to)
   return fromSI(toSI(value, from), to)
+}
+
+/**
+ * The affine pair from one unit straight to another of the same quantity (to = value · scale +
+ * offset), for converting many values (a chart's points) with one multiply-add each.
+ */
+export function conversionBetween(from: Unit, to: Unit): Conversion {
+  sameQuantity(from, to)
+  const a = conversionFor(from)
+  const b = conversionFor(to)
+  return { scale: a.scale / b.scale, offset: (a.offset - b.offset) / b.scale }
+}
+
+/** A *difference* between two units of one quantity: only the scales apply (1 K = 1 °C = 1.8 °F). */
+export function convertDifference(delta: number, from: Unit, to: Unit): number {
+  sameQuantity(from, to)
+  return delta * conversionFor(from).scale / conversionFor(to).scale
+}
+
+// How a unit is written on screen where its code is not already the symbol.
+const SYMBOLS: Partial<Record<Unit, string>> = { degC: '°C', degF: '°F' }
+
+/** The unit as written on screen: "degC" → "°C", "kPa" → "kPa". */
+export function unitSymbol(unit: Unit): string {
+  return SYMBOLS[unit] ?? unit
 }
 
 /**
