@@ -50,7 +50,7 @@ describe('a quote from the fabricator to the paid deposit', () => {
       expect(one<{ n: number }>('select count(*) n from outbox where kind = \'quote\' and subject like ?', `%${quoteNumber}%`).n).toBe(1)
 
       await page.getByRole('link', { name: 'Quotes', exact: true }).click()
-      await page.getByTestId('quote-list').getByRole('link', { name: `Quote ${quoteNumber}` }).waitFor()
+      await page.getByTestId('quote-list').getByRole('link', { name: quoteNumber }).waitFor()
       await screenshot(page, 'quotes-desktop-list')
     }
     finally {
@@ -67,7 +67,7 @@ describe('a quote from the fabricator to the paid deposit', () => {
       await page.getByTestId('home-driver').waitFor()
       await page.getByTestId('vehicle-list').getByRole('link').first().click()
       await page.getByTestId('vehicle-quotes').waitFor()
-      await page.getByTestId('vehicle-quotes').getByRole('link', { name: `Quote ${quoteNumber}` }).click()
+      await page.getByTestId('vehicle-quotes').getByRole('link', { name: quoteNumber }).click()
       await page.getByTestId('quote-answer').waitFor()
       await expect(page.getByTestId('fabrication-cautions').isVisible()).resolves.toBe(true)
       // Nothing sticks out sideways on a phone.
