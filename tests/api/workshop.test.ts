@@ -1,4 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import Database from 'better-sqlite3'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { addDaysUtc, quoteTotals, todayUtc } from '../../shared/utils/quotes'
 import { Client, readDatabase, signIn, useTestServer } from './client'
 
@@ -7,7 +8,7 @@ await useTestServer()
 // The owner's quote defaults on the workshop page: tax rate, how long a quote is valid, the terms.
 
 interface WorkshopRow { id: number, name: string, currency: string, labour_rate_cents: number, deposit_percent: number, correction_standard: string, tax_rate_pct: number, quote_validity_days: number, quote_terms: string }
-const row = () => readDatabase(db => db.prepare('select * from workshops where slug = ?').get('kestrel') as WorkshopRow)
+const row = () => readDatabase(db => db.prepare('select w.* from workshops w join users u on u.workshop_id = w.id where u.email = ?').get('owner@kestrel.test') as WorkshopRow)
 const auditCount = () => readDatabase(db => (db.prepare('select count(*) n from audit_events where entity = \'workshop\' and entity_id = ?').get(row().id) as { n: number }).n)
 const writes = () => ({ workshop: row(), audit: auditCount() })
 
@@ -25,9 +26,17 @@ beforeAll(async () => {
   driverCar = readDatabase(db => (db.prepare('select v.id from vehicles v join users u on u.id = v.owner_id where u.email = ? order by v.id limit 1').get('driver@kestrel.test') as { id: number }).id)
 })
 
-// Put the demo workshop back as it was for the files that run after this one.
-afterAll(async () => {
-  await clients.owner.patch('/api/workshop', { taxRatePct: start.tax_rate_pct, quoteValidityDays: start.quote_validity_days, quoteTerms: start.quote_terms })
+// Put the demo workshop back as it was for the files that run after this one (written directly:
+// the test server's context exists only inside tests).
+afterAll(() => {
+  const db = new Database(`${inject('dataDir')}/densitas.sqlite`)
+  try {
+    db.pragma('busy_timeout = 5000')
+    db.prepare('update workshops set tax_rate_pct = ?, quote_validity_days = ?, quote_terms = ? where id = ?').run(start.tax_rate_pct, start.quote_validity_days, start.quote_terms, start.id)
+  }
+  finally {
+    db.close()
+  }
 })
 
 describe('the quote defaults on the workshop record', () => {
@@ -78,6 +87,7 @@ describe('the quote defaults on the workshop record', () => {
     const before = writes()
     const reply = await clients[who].patch<{ message: string }>('/api/workshop', { taxRatePct: 5, quoteValidityDays: 3, quoteTerms: 'Not theirs.' })
     expect(reply.status).toBe(status)
+    if (status === 403) expect(reply.body.message).toMatch(/Only the workshop owner changes/)
     expect(writes()).toEqual(before)
   })
 })
