@@ -78,6 +78,11 @@ describe('UiDataTable', () => {
     expect((select.element as HTMLSelectElement).value).toBe('name:asc')
     await select.setValue('depth:desc')
     expect(wrapper.emitted('update:sort')).toEqual([[{ key: 'depth', dir: 'desc' }]])
+    // A list in its own order (no sort key chosen) says so instead of showing a blank menu.
+    const unsorted = await mountSuspended(Table, { props: base })
+    const menu = unsorted.find('[data-testid="things-phone-sort"]')
+    expect(menu.findAll('option')[0]!.text()).toBe('As listed')
+    expect((menu.element as HTMLSelectElement).value).toBe('')
     const off = await mountSuspended(Table, { props: { ...base, phoneSort: false } })
     expect(off.find('[data-testid="things-phone-sort"]').exists()).toBe(false)
     const wide = await mountSuspended(Table, { props: { ...base, stackOnPhone: false } })
