@@ -83,8 +83,10 @@ export async function computeComparison(actor: Actor, vehicle: VehicleRow, sides
 /** The comparison as staff and the car's customer read it. */
 export function comparisonView(row: ComparisonRow, vehicle: VehicleRow) {
   const result = row.result as unknown as StoredComparison
+  const labels = new Map(result.logs.map(l => [l.id, l.label]))
   return {
     ...result,
+    pulls: result.pulls.map(p => ({ ...p, log: labels.get(p.logId) ?? '' })),
     id: row.id,
     vehicleId: row.vehicleId,
     vehicle: { id: vehicle.id, description: vehicle.description, registration: vehicle.registration, ratedPowerKw: vehicle.ratedPowerKw },

@@ -38,7 +38,8 @@ export const createQuoteBody = z.object({
   sizingId: z.number().int().positive().nullable().optional(),
   coreId: editable.coreId.optional(),
   lines: editable.lines,
-  taxRatePct: editable.taxRatePct,
+  // Left out, the workshop's own tax rate, validity and terms are used (the workshop page sets them).
+  taxRatePct: editable.taxRatePct.optional(),
   depositPct: editable.depositPct.optional(),
   validUntil: editable.validUntil.optional(),
   terms: editable.terms.optional(),

@@ -43,7 +43,8 @@ export interface SharedComparison extends Omit<BeforeAfterResult, 'before' | 'af
 
 /** What the comparison page and the shared page both draw. */
 export type ComparisonView = Omit<SharedComparison, 'kind' | 'workshopName' | 'vehicleDescription' | 'computedAt' | 'pulls' | 'unmatchedPulls'> & {
-  pulls: Array<Omit<BeforeAfterResult['pulls'][number], 'logId'>>
+  /** `log`: the log's label ("of 14 Jul"), so pulls of two logs on one side can be told apart. */
+  pulls: Array<Omit<BeforeAfterResult['pulls'][number], 'logId'> & { log?: string }>
   unmatchedPulls: Array<Omit<BeforeAfterResult['unmatchedPulls'][number], 'logId'>>
 }
 

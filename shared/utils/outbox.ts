@@ -50,3 +50,8 @@ export function formatAttachmentSize(bytes: number | null | undefined) {
 }
 
 export const OUTBOX_PAGE_SIZE = 25
+
+// Fixed keys the outbox can be sorted by; the server maps each to its column ("queued" is the order
+// the messages were made in, newest first by default).
+export const OUTBOX_SORT_KEYS = ['queued', 'to', 'subject', 'kind', 'status', 'attempts', 'sent'] as const
+export type OutboxSortKey = typeof OUTBOX_SORT_KEYS[number]

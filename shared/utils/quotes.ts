@@ -4,6 +4,11 @@
 export const QUOTE_STATES = ['draft', 'sent', 'accepted', 'deposit_paid', 'in_progress', 'completed', 'declined', 'expired', 'cancelled'] as const
 export type QuoteState = typeof QUOTE_STATES[number]
 
+// Fixed keys the quote lists can be sorted by (the server maps each to its column) and page sizes.
+export const QUOTE_SORT_KEYS = ['number', 'car', 'status', 'validUntil', 'total'] as const
+export type QuoteSortKey = typeof QUOTE_SORT_KEYS[number]
+export const QUOTE_PAGE_SIZES = [10, 25, 50, 100] as const
+
 export const QUOTE_STATE_LABELS: Record<QuoteState, string> = {
   draft: 'Draft',
   sent: 'Sent',

@@ -245,6 +245,36 @@ describe('who may read the outbox', () => {
     expect(failed.body.every(row => row.status === 'failed')).toBe(true)
   })
 
+  it('searches the address and subject, with the total in X-Total-Count', async () => {
+    const all = await owner.get<OutboxEntry[]>('/api/outbox?limit=100')
+    const sample = all.body.find(row => row.kind === 'invite')!
+    const reply = await owner.get<OutboxEntry[]>(`/api/outbox?limit=100&q=${encodeURIComponent(sample.to.toUpperCase())}`)
+    expect(reply.status).toBe(200)
+    expect(reply.body.map(row => row.id)).toContain(sample.id)
+    expect(reply.body.every(row => row.to.toLowerCase().includes(sample.to.toLowerCase()))).toBe(true)
+    expect(Number(reply.headers.get('x-total-count'))).toBe(reply.body.length)
+    const bySubject = await owner.get<OutboxEntry[]>('/api/outbox?limit=100&q=invites')
+    expect(bySubject.body.length).toBeGreaterThan(0)
+    expect(bySubject.body.every(row => /invites/i.test(row.subject) || /invites/i.test(row.to))).toBe(true)
+    // A % typed in the box is a percent sign, not "anything".
+    const percent = await owner.get<OutboxEntry[]>('/api/outbox?limit=100&q=%25')
+    expect(percent.body.every(row => row.subject.includes('%') || row.to.includes('%'))).toBe(true)
+    expect(Number(percent.headers.get('x-total-count'))).toBeLessThan(Number(all.headers.get('x-total-count')))
+  })
+
+  it('sorts by a fixed key in both directions', async () => {
+    const ascending = await owner.get<OutboxEntry[]>('/api/outbox?limit=100&sort=to&dir=asc')
+    const addresses = ascending.body.map(row => row.to.toLowerCase())
+    expect(addresses).toEqual([...addresses].sort())
+    const descending = await owner.get<OutboxEntry[]>('/api/outbox?limit=100&sort=attempts&dir=desc')
+    const tries = descending.body.map(row => row.attempts)
+    expect(tries).toEqual([...tries].sort((a, b) => b - a))
+    const badSort = await owner.get<{ message: string }>('/api/outbox?sort=to_email')
+    expect(badSort.status).toBe(400)
+    expect(badSort.body.message).toMatch(/sort by one of: queued, to, subject, kind, status, attempts, sent/)
+    expect((await owner.get<{ message: string }>('/api/outbox?dir=up')).body.message).toMatch(/the order is asc or desc/)
+  })
+
   it('explains bad paging, filters and ids', async () => {
     const tooMany = await owner.get<{ message: string }>('/api/outbox?limit=500')
     expect(tooMany.status).toBe(400)

@@ -227,6 +227,47 @@ describe('reading quotes', () => {
     expect((await clients.anonymous.get('/api/quotes')).status).toBe(401)
   })
 
+  it('pages, searches and sorts the quote table on the server, within what each role may see', async () => {
+    const { draft, out } = await quotes()
+    interface Page { items: Array<{ id: number, number: string, totalCents: number, vehicle: { description: string } }>, total: number, page: number, pageSize: number }
+    const all = (await clients.fabricator.get<Array<{ id: number }>>('/api/quotes')).body
+    const first = await clients.fabricator.get<Page>('/api/quotes?page=1&pageSize=10')
+    expect(first.status).toBe(200)
+    expect(first.body.total).toBe(all.length)
+    expect(first.body.items).toHaveLength(Math.min(10, all.length))
+    expect(first.body.items.map(q => q.id)).toEqual(all.slice(0, 10).map(q => q.id))
+
+    const found = await clients.fabricator.get<Page>(`/api/quotes?page=1&q=${encodeURIComponent(draft.number.toLowerCase())}`)
+    expect(found.body.items.map(q => q.id)).toEqual([draft.id])
+    expect(found.body.total).toBe(1)
+    const byCar = await clients.fabricator.get<Page>(`/api/quotes?page=1&pageSize=100&q=${encodeURIComponent(first.body.items[0]!.vehicle.description.slice(0, 12))}`)
+    expect(byCar.body.items.length).toBeGreaterThan(0)
+
+    const dearest = await clients.fabricator.get<Page>('/api/quotes?page=1&pageSize=100&sort=total&dir=desc')
+    const totals = dearest.body.items.map(q => q.totalCents)
+    expect(totals).toEqual([...totals].sort((a, b) => b - a))
+    const cheapest = await clients.fabricator.get<Page>('/api/quotes?page=1&pageSize=100&sort=total&dir=asc')
+    expect(cheapest.body.items.map(q => q.totalCents)).toEqual([...totals].reverse())
+
+    const driver = await clients.driver.get<Page>('/api/quotes?page=1&pageSize=100')
+    expect(driver.body.items.map(q => q.id)).toContain(out.id)
+    expect(driver.body.items.map(q => q.id)).not.toContain(draft.id)
+    expect((await clients.driver.get<Page>(`/api/quotes?page=1&q=${encodeURIComponent(draft.number)}`)).body).toMatchObject({ items: [], total: 0 })
+
+    const bad: Array<[string, RegExp]> = [
+      ['sort=total_cents', /sort by one of: number, car, status, validUntil, total/],
+      ['dir=up', /the order is asc or desc/],
+      ['page=0', /pages start at 1/],
+      ['page=1&pageSize=7', /a page holds 10, 25, 50, 100 quotes/],
+      [`page=1&q=${'x'.repeat(81)}`, /keep the search under 80 characters/],
+    ]
+    for (const [query, message] of bad) {
+      const reply = await clients.fabricator.get<{ message: string }>(`/api/quotes?${query}`)
+      expect(reply.status, query).toBe(400)
+      expect(reply.body.message).toMatch(message)
+    }
+  })
+
   it.each([
     ['anonymous', 401], ['tuner', 200], ['fabricator', 200], ['driver', 200], ['driver2', 404], ['foreignOwner', 404],
   ] as const)('%s → %i downloading the PDF', async (who, status) => {

@@ -101,7 +101,7 @@ describe('from sizing a front-mount to the paid deposit', () => {
       await expect(page.getByTestId('quote-status').textContent()).resolves.toBe('Sent')
       await screenshot(page, 'journey-07-quote-sent')
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Quotes', exact: true }).click()
-      await page.getByTestId('quote-list').getByRole('link', { name: `Quote ${quoteNumber}` }).waitFor()
+      await page.getByTestId('quote-list').getByRole('link', { name: quoteNumber }).waitFor()
 
       // 8. The outbox shows the e-mail, sent, with the quote's PDF.
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Outbox', exact: true }).click()
@@ -126,7 +126,7 @@ describe('from sizing a front-mount to the paid deposit', () => {
       await page.getByTestId('vehicle-list').getByRole('link', { name: /2\.0 L four-cylinder turbo-diesel hatchback/ }).first().click()
       await page.getByTestId('vehicle-quotes').waitFor()
       await screenshot(page, 'journey-09-driver-car')
-      await page.getByTestId('vehicle-quotes').getByRole('link', { name: `Quote ${quoteNumber}` }).click()
+      await page.getByTestId('vehicle-quotes').getByRole('link', { name: quoteNumber }).click()
       await page.getByTestId('quote-answer').waitFor()
       await expect(page.getByTestId('fabrication-cautions').isVisible()).resolves.toBe(true)
       // Nothing sticks out sideways on a phone.

@@ -2,6 +2,7 @@ import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { describe, expect, it } from 'vitest'
 import Verdict from '~/components/comparison/Verdict.vue'
 import Figures from '~/components/comparison/Figures.vue'
+import Pulls from '~/components/comparison/Pulls.vue'
 import { compareCores, type ComparisonLogInput, type ComparisonPullInput } from '../../server/analysis/beforeAfter'
 
 // The hand-computed pair of tests/unit/analysis/beforeAfter.test.ts, on a 45 °C after day.
@@ -74,5 +75,26 @@ describe('ComparisonFigures', () => {
     finally {
       units.temperature = 'C'
     }
+  })
+})
+
+describe('ComparisonPulls', () => {
+  const labels: Record<number, string> = { 1: 'of 14 Jul', 2: 'of 2 Aug' }
+  const withLogs = { ...view, pulls: view.pulls.map(({ logId, ...p }) => ({ ...p, log: labels[logId] })) }
+
+  it('lists every pull with its log, and finds the pulls of one side by search', async () => {
+    const wrapper = await mountSuspended(Pulls, { props: { comparison: withLogs } })
+    const rows = () => wrapper.findAll('[data-testid="comparison-pull"]')
+    expect(rows()).toHaveLength(4)
+    expect(rows()[0]!.findAll('td').map(td => td.text()).slice(0, 3)).toEqual(['before', 'of 14 Jul', '1'])
+    await wrapper.find('[data-testid="comparison-pulls-search"]').setValue('aug')
+    expect(rows().map(r => r.findAll('td')[0]!.text())).toEqual(['after', 'after'])
+  })
+
+  it('sorts by charge temperature over ambient, hottest first on the first click', async () => {
+    const wrapper = await mountSuspended(Pulls, { props: { comparison: withLogs } })
+    await wrapper.find('[data-testid="sort-delta"]').trigger('click')
+    // Over ambient: before 38, 36 K; after 16, 18 K.
+    expect(wrapper.findAll('[data-testid="comparison-pull"]').map(r => r.findAll('td')[6]!.text())).toEqual(['38.0 K', '36.0 K', '18.0 K', '16.0 K'])
   })
 })

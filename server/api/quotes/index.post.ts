@@ -19,7 +19,8 @@ export default defineEventHandler(async (event) => {
   }
   const workshop = db.select().from(tables.workshops).where(eq(tables.workshops.id, actor.workshopId)).get()!
   const depositPct = input.depositPct ?? workshop.depositPercent
-  const totals = quoteTotals(input.lines, input.taxRatePct, depositPct)
+  const taxRatePct = input.taxRatePct ?? workshop.taxRatePct
+  const totals = quoteTotals(input.lines, taxRatePct, depositPct)
   const today = todayUtc()
 
   const quote = db.transaction((tx) => {
@@ -34,7 +35,7 @@ export default defineEventHandler(async (event) => {
       sizing,
       currency: workshop.currency,
       subtotalCents: totals.subtotalCents,
-      taxRatePct: input.taxRatePct,
+      taxRatePct,
       taxCents: totals.taxCents,
       totalCents: totals.totalCents,
       depositPct,
