@@ -141,7 +141,7 @@ describe('a patch writes only the keys sent', () => {
     expect(row('select * from workshops where id = ?', before.id)).toEqual({ ...before, labour_rate_cents: 7300 })
     const empty = await owner.patch<{ message: string }>('/api/workshop', {})
     expect(empty.status).toBe(400)
-    expect(empty.body.message).toBe('Nothing to change: send the name, currency, labour rate or deposit share.')
+    expect(empty.body.message).toBe('Nothing to change: send the name, currency, labour rate, deposit share, tax rate, quote validity or quote terms.')
   })
 
   it('PATCH /api/me with one field keeps every other column', async () => {
