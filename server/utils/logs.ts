@@ -235,7 +235,8 @@ export async function storeNewLog(input: NewLog) {
       // Its analysis goes with it (ON DELETE CASCADE).
       useDb().delete(tables.logs).where(eq(tables.logs.id, log.id)).run()
       await removeLogFile(log.id)
-      throw error
+      console.error(`[uploads] The file of a new log could not be kept: ${(error as Error).message}`)
+      throw createError({ statusCode: 503, message: 'The log could not be stored just now: the file storage did not take it. Nothing was saved; try again in a minute, and tell the workshop owner if it keeps happening.' })
     }
     return { log, analysis }
   }

@@ -1,4 +1,4 @@
-import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs'
+import { existsSync, mkdtempSync, readFileSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import Database from 'better-sqlite3'
@@ -101,6 +101,28 @@ describe('uploads kept by another storage driver', () => {
     const reply = await upload('Time (s),Engine speed (rpm)\n0,800\n1,900\n')
     expect(reply.status).toBe(422)
     expect({ logs: query<{ n: number }>('select count(*) n from logs').n, files: files() }).toEqual(before)
+  })
+
+  it('answers 503 with what to do, and keeps no row, when the storage does not take the file', async () => {
+    const rows = () => query<{ logs: number, analyses: number, audits: number }>('select (select count(*) from logs) logs, (select count(*) from analyses) analyses, (select count(*) from audit_events where action = \'uploaded\') audits')
+    const logs = join(storeDir, 'logs')
+    // A file where the driver wants its folder: every put under logs/ fails.
+    renameSync(logs, `${logs}.aside`)
+    writeFileSync(logs, 'not a folder')
+    try {
+      const before = rows()
+      const reply = await upload(demo.csv)
+      expect(reply.status).toBe(503)
+      expect(((await reply.json()) as { message: string }).message).toMatch(/could not be stored just now.*Nothing was saved; try again/)
+      expect(rows()).toEqual(before)
+      expect(readFileSync(logs, 'utf8')).toBe('not a folder')
+      const incoming = join(server.dataDir, 'uploads', 'incoming')
+      expect(existsSync(incoming) ? readdirSync(incoming) : []).toEqual([])
+    }
+    finally {
+      rmSync(logs)
+      renameSync(`${logs}.aside`, logs)
+    }
   })
 })
 
