@@ -1,6 +1,9 @@
 // Densitas: Nuxt 4 with the flat layout (no app/ folder), so the project root is the source dir.
 import { API_POLICY, BASE_PAGE_POLICY } from './server/utils/security-headers'
 
+// Uploaded log files, relative to the working directory (server/utils/uploads.ts).
+const UPLOADS_DIR = './data/uploads'
+
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
   // Production pages also get a content security policy (the dev server's inline scripts would not pass it).
@@ -26,7 +29,14 @@ export default defineNuxtConfig({
   // (DATABASE_URL and UPLOADS_DIR are also honoured, see server/utils/config.ts).
   runtimeConfig: {
     databaseUrl: './data/densitas.sqlite',
-    uploadsDir: './data/uploads',
+    // Where uploaded logs are kept (README, "Where uploads are kept"): `dir` on this machine holds
+    // files being received and, with the fs driver, the stored logs (NUXT_UPLOADS_DIR). Another
+    // unstorage driver by name (NUXT_UPLOADS_DRIVER=s3) takes its options as JSON (NUXT_UPLOADS_OPTIONS).
+    uploads: {
+      dir: UPLOADS_DIR,
+      driver: 'fs',
+      options: {},
+    },
     migrationsDir: './db/migrations',
     seedDemo: true,
     // Behind a reverse proxy (NUXT_TRUST_PROXY=true), take the client address from X-Forwarded-For
@@ -83,6 +93,10 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },
+    // The default uploads mount; mounted again at start-up from runtime config above.
+    storage: {
+      uploads: { driver: 'fs', base: UPLOADS_DIR },
+    },
     // The shipped font, bundled into the server for quote PDFs (nothing is read from node_modules
     // at run time). Paths are relative to server/.
     serverAssets: [{ baseName: 'fonts', dir: '../node_modules/@fontsource/roboto-flex/files', pattern: 'roboto-flex-latin-400-normal.woff' }],

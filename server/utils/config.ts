@@ -9,7 +9,7 @@ export function databasePath() {
 }
 
 export function uploadsDir() {
-  return toAbsolute(process.env.UPLOADS_DIR || useRuntimeConfig().uploadsDir)
+  return toAbsolute(process.env.UPLOADS_DIR || useRuntimeConfig().uploads.dir)
 }
 
 export function migrationsDir() {

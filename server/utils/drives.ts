@@ -31,7 +31,7 @@ export async function storeChosenDrives(input: NewLog & { file: { temporaryPath:
   const chosen = parseDriveChoice(choice, drives)
   // A file of one drive is stored as the whole file (no drive index), whatever the choice said.
   const indexes: (number | undefined)[] = drives.length === 1 ? [undefined] : chosen
-  for (const driveIndex of indexes) await importAndAnalyse(path, input.mapping, input.conditions, input.vehicle, undefined, driveIndex)
+  for (const driveIndex of indexes) await importAndAnalyse({ path }, input.mapping, input.conditions, input.vehicle, undefined, driveIndex)
   const ids: number[] = []
   for (const driveIndex of indexes) {
     const copy = temporaryUploadPath(incomingDir())

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto'
-import { existsSync, mkdirSync, renameSync } from 'node:fs'
 import { rm, writeFile } from 'node:fs/promises'
-import { dirname, join } from 'node:path'
+import { join } from 'node:path'
 import { and, eq, type SQL } from 'drizzle-orm'
 import type { Actor } from '#shared/utils/abilities'
 import {
@@ -76,10 +75,11 @@ function importOptions(mapping: MappingInput | undefined, conditions: Conditions
   }
 }
 
-// Import and analysis of a file run in the worker pool (server/utils/analysis-pool.ts).
-export async function importAndAnalyse(path: string, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits, driveIndex?: number | null) {
+// Import and analysis of a file run in the worker pool (server/utils/analysis-pool.ts): a file
+// just received ({ path } of its temporary file) or a stored one (server/utils/uploads.ts).
+export async function importAndAnalyse(source: StoredLogSource, mapping: MappingInput | undefined, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits, driveIndex?: number | null) {
   try {
-    return await analyseInWorker({ path, importOptions: importOptions(mapping, conditions, driveIndex), analyseOptions: analyseOptions(conditions, vehicle, pullEdits) })
+    return await analyseInWorker({ source, importOptions: importOptions(mapping, conditions, driveIndex), analyseOptions: analyseOptions(conditions, vehicle, pullEdits) })
   }
   catch (error) {
     asHttpError(error)
@@ -89,16 +89,18 @@ export async function importAndAnalyse(path: string, mapping: MappingInput | und
 // A stored log analysed again with new conditions or pull edits, from its file and stored mapping.
 // A log deleted meanwhile is a 404, like any other missing log.
 export async function reanalyseStoredLog(log: LogRow, conditions: ConditionsInput, vehicle: VehicleRow, pullEdits?: PullEdits): Promise<AnalysisResult> {
+  const source = await storedLogSource(log.id)
+  if (!source) notFound('Log')
   try {
     const { analysis } = await analyseInWorker({
-      path: logFilePath(log.id),
+      source,
       importOptions: importOptions(log.mapping as MappingInput, conditions, log.driveIndex),
       analyseOptions: analyseOptions(conditions, vehicle, pullEdits),
     })
     return analysis
   }
   catch (error) {
-    if (!existsSync(logFilePath(log.id))) notFound('Log')
+    if (!await hasLogFile(log.id)) notFound('Log')
     asHttpError(error)
   }
 }
@@ -127,13 +129,16 @@ export async function loadImported(log: LogRow) {
     channelCache.set(key, cached)
     return cached
   }
-  const path = logFilePath(log.id)
   let imported: ImportedLog
   try {
     // Readers of the same log (a report opens several charts at once) share one import.
     let pending = importsInFlight.get(key)
     if (!pending) {
-      pending = importInWorker({ path, importOptions: importOptions(log.mapping as MappingInput, log.conditions, log.driveIndex) })
+      pending = storedLogSource(log.id)
+        .then((source) => {
+          if (!source) notFound('Log')
+          return importInWorker({ source, importOptions: importOptions(log.mapping as MappingInput, log.conditions, log.driveIndex) })
+        })
         .finally(() => importsInFlight.delete(key))
       importsInFlight.set(key, pending)
     }
@@ -141,10 +146,10 @@ export async function loadImported(log: LogRow) {
   }
   catch (error) {
     // The log was deleted while its file was being read: it is gone, not broken.
-    if (!existsSync(path)) notFound('Log')
+    if (!await hasLogFile(log.id)) notFound('Log')
     asHttpError(error)
   }
-  if (!existsSync(path)) notFound('Log')
+  if (!await hasLogFile(log.id)) notFound('Log')
   for (const old of channelCache.keys()) {
     if (old.startsWith(`${log.id}:`)) channelCache.delete(old)
   }
@@ -180,8 +185,10 @@ export function incomingDir() {
   return join(uploadsDir(), 'incoming')
 }
 
-// The file is analysed from a temporary name in the worker pool, then the rows are written and the
-// file renamed to its id inside one transaction, so a failure leaves neither row nor file.
+// The file is analysed from its temporary name in the worker pool; then the rows are written and
+// the file kept in the uploads storage under the new id (server/utils/uploads.ts). If keeping the
+// file fails, the rows go again, so a failure leaves neither row nor file. The upload is audited
+// only once its file is kept.
 export async function storeNewLog(input: NewLog) {
   const { actor, vehicle, conditions } = input
   let temporary: string
@@ -197,9 +204,8 @@ export async function storeNewLog(input: NewLog) {
     ({ temporaryPath: temporary, sizeBytes, sha256 } = input.file)
   }
   const originalName = cleanFileName(input.originalName)
-  let finalPath: string | undefined
   try {
-    const { analysis, mapping, rowCount, durationS } = await importAndAnalyse(temporary, input.mapping, conditions, vehicle, undefined, input.driveIndex)
+    const { analysis, mapping, rowCount, durationS } = await importAndAnalyse({ path: temporary }, input.mapping, conditions, vehicle, undefined, input.driveIndex)
     const log = useDb().transaction((tx) => {
       const row = tx.insert(tables.logs).values({
         workshopId: actor.workshopId,
@@ -219,18 +225,24 @@ export async function storeNewLog(input: NewLog) {
         driveIndex: input.driveIndex ?? null,
       }).returning().get()
       tx.insert(tables.analyses).values({ workshopId: actor.workshopId, logId: row.id, engineVersion: ENGINE_VERSION, result: analysis as unknown as Record<string, unknown> }).run()
-      recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'uploaded', entity: 'log', entityId: row.id, detail: { vehicleId: vehicle.id, originalName, sizeBytes, rows: rowCount } })
-      finalPath = logFilePath(row.id)
-      mkdirSync(dirname(finalPath), { recursive: true })
-      renameSync(temporary, finalPath)
       return row
     })
+    try {
+      await keepLogFile(log.id, temporary)
+      recordAudit(useDb(), { workshopId: actor.workshopId, userId: actor.id, action: 'uploaded', entity: 'log', entityId: log.id, detail: { vehicleId: vehicle.id, originalName, sizeBytes, rows: rowCount } })
+    }
+    catch (error) {
+      // Its analysis goes with it (ON DELETE CASCADE).
+      useDb().delete(tables.logs).where(eq(tables.logs.id, log.id)).run()
+      await removeLogFile(log.id)
+      console.error(`[uploads] The file of a new log could not be kept: ${(error as Error).message}`)
+      throw createError({ statusCode: 503, message: 'The log could not be stored just now: the file storage did not take it. Nothing was saved; try again in a minute, and tell the workshop owner if it keeps happening.' })
+    }
     return { log, analysis }
   }
-  catch (error) {
+  finally {
+    // Renamed into the storage with the fs driver; copied and no longer needed with any other.
     await rm(temporary, { force: true })
-    if (finalPath) await rm(finalPath, { force: true })
-    throw error
   }
 }
 
@@ -277,7 +289,7 @@ export function logDetail(log: LogRow, vehicle: VehicleRow, channels?: string[])
 // The drives a file holds (several joined drives, or one), read in the worker pool like any import.
 export async function drivesInFile(path: string, mapping: MappingInput | undefined, conditions: ConditionsInput): Promise<DriveInfo[]> {
   try {
-    return (await importInWorker({ path, importOptions: importOptions(mapping, conditions) })).drives
+    return (await importInWorker({ source: { path }, importOptions: importOptions(mapping, conditions) })).drives
   }
   catch (error) {
     if (isLogImportError(error) && error.code === 'SEVERAL_DRIVES' && error.drives) return error.drives as DriveInfo[]

@@ -1,4 +1,3 @@
-import { existsSync } from 'node:fs'
 import { and, eq } from 'drizzle-orm'
 import type { AnalysisResult, MappingInput, PullEdits } from '../analysis'
 
@@ -27,10 +26,11 @@ async function reanalyse(logId: number, staleVersion: string): Promise<AnalysisR
     .get()
   if (!row) notFound('Log')
   const { log, vehicle } = row
-  if (!existsSync(logFilePath(log.id))) {
+  const source = await storedLogSource(log.id)
+  if (!source) {
     throw createError({ statusCode: 409, message: 'This log was analysed by an older version of Densitas and its file is no longer stored, so it cannot be analysed again. Upload the log again.' })
   }
-  const { analysis } = await importAndAnalyse(logFilePath(log.id), log.mapping as MappingInput, log.conditions, vehicle, log.pullEdits as PullEdits)
+  const { analysis } = await importAndAnalyse(source, log.mapping as MappingInput, log.conditions, vehicle, log.pullEdits as PullEdits)
   useDb().transaction((tx) => {
     // Only over the stale row: an edit that re-analysed the log meanwhile keeps its newer result.
     const updated = tx.update(tables.analyses)

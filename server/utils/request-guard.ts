@@ -8,6 +8,29 @@ export const MULTIPART_ROUTES: ReadonlyArray<{ method: string, path: string }> =
   { method: 'POST', path: '/api/logs' },
 ]
 
+// Routes that take raw bytes (application/octet-stream) instead of JSON, each read within its own
+// limit and answered with its own 413 message. The upload form sends the start of a log this way
+// so the server decodes it exactly as the import will (UTF-16, Windows-1252).
+export interface BytesRoute {
+  method: string
+  path: string
+  limitBytes: number
+  tooLargeMessage: string
+}
+
+export const BYTES_ROUTES: ReadonlyArray<BytesRoute> = [
+  {
+    method: 'POST',
+    path: '/api/logs/detect',
+    limitBytes: LOG_UPLOAD_LIMITS.sampleBytes,
+    tooLargeMessage: `Send only the first ${LOG_UPLOAD_LIMITS.sampleBytes / 1024} KB of the log for detection; the whole file goes with the upload.`,
+  },
+]
+
+export function isOctetStream(value: string | undefined) {
+  return value?.split(';')[0]!.trim().toLowerCase() === 'application/octet-stream'
+}
+
 // Signed server-to-server calls (payment provider): no browser, no cookie, their own checks.
 export const isWebhookPath = (path: string) => path.startsWith('/api/webhooks/')
 
@@ -62,22 +85,22 @@ export function hasBody(event: H3Event) {
   return Number.parseInt(headers['content-length'] || '0', 10) > 0 || /\bchunked\b/i.test(String(headers['transfer-encoding'] ?? ''))
 }
 
-const tooLarge = () => createError({ statusCode: 413, message: `The request is too large: a form sends at most ${JSON_BODY_LIMIT_BYTES / 1024 / 1024} MB. Send less text, or upload a log file on the upload page.` })
+const TOO_LARGE_FORM = `The request is too large: a form sends at most ${JSON_BODY_LIMIT_BYTES / 1024 / 1024} MB. Send less text, or upload a log file on the upload page.`
 
 // Past the limit the answer goes out at once and nothing more is kept: the bytes still arriving
 // are read and dropped (closing at once would reset the connection before the client has read
 // the 413). Node's request timeout ends a client that keeps sending for ever.
-function refuse(event: H3Event): Promise<never> {
+function refuse(event: H3Event, message: string): Promise<never> {
   event.node.req.resume()
-  return Promise.reject(tooLarge())
+  return Promise.reject(createError({ statusCode: 413, message }))
 }
 
 // Reads the body into memory only up to the limit, counting the bytes as they arrive (a chunked
 // body has no Content-Length to trust). Past the limit the rest is not kept, and the reply is 413.
-export function readLimitedBody(event: H3Event, limit = JSON_BODY_LIMIT_BYTES): Promise<Buffer> {
+export function readLimitedBody(event: H3Event, limit = JSON_BODY_LIMIT_BYTES, tooLargeMessage = TOO_LARGE_FORM): Promise<Buffer> {
   const req = event.node.req
   const declared = Number.parseInt(req.headers['content-length'] || '', 10)
-  if (Number.isFinite(declared) && declared > limit) return refuse(event)
+  if (Number.isFinite(declared) && declared > limit) return refuse(event, tooLargeMessage)
   return new Promise((resolve, reject) => {
     const chunks: Buffer[] = []
     let size = 0
@@ -86,7 +109,7 @@ export function readLimitedBody(event: H3Event, limit = JSON_BODY_LIMIT_BYTES): 
       if (size > limit) {
         cleanup()
         chunks.length = 0
-        refuse(event).catch(reject)
+        refuse(event, tooLargeMessage).catch(reject)
         return
       }
       chunks.push(chunk)

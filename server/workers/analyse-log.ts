@@ -14,9 +14,12 @@ import {
 } from '../analysis'
 import { move, transferableSymbol, valueSymbol } from 'piscina'
 
+/** A file on this machine's disk (read by the worker itself), or a stored file's bytes (copied in). */
+export type JobSource = { path: string } | Uint8Array
+
 export type AnalysisJob
-  = | { kind: 'analyse', path: string, importOptions: ImportOptions, analyseOptions: AnalyseOptions }
-    | { kind: 'import', path: string, importOptions: ImportOptions }
+  = | { kind: 'analyse', source: JobSource, importOptions: ImportOptions, analyseOptions: AnalyseOptions }
+    | { kind: 'import', source: JobSource, importOptions: ImportOptions }
 
 export interface AnalysedLog {
   analysis: AnalysisResult
@@ -50,7 +53,7 @@ function movable(reply: Extract<JobReply, { kind: 'import' }>) {
 
 export default async function run(job: AnalysisJob) {
   try {
-    const imported = await importLog({ path: job.path }, job.importOptions)
+    const imported = await importLog(job.source, job.importOptions)
     if (job.kind === 'import') return movable({ ok: true, kind: 'import', value: imported })
     const analysis = analyseLog(imported, job.analyseOptions)
     return { ok: true, kind: 'analyse', value: { analysis, mapping: imported.mapping, rowCount: imported.rowCount, durationS: imported.durationS } } satisfies JobReply

@@ -3,6 +3,8 @@
 export const LOG_UPLOAD_LIMITS = {
   maxBytes: 50 * 1024 * 1024,
   maxRows: 2_000_000,
+  /** The start of the file the upload page sends for detection, as bytes. */
+  sampleBytes: 512 * 1024,
   extensions: ['.csv', '.txt', '.log'] as const,
 }
 

@@ -65,6 +65,12 @@ export class Client {
     return toReply<T>(await testFetch(path, { method, headers, body: init.body, redirect: 'manual' }))
   }
 
+  // The start of a log as bytes, as the upload page sends it for detection.
+  detect<T = unknown>(sample: string | Uint8Array, fileName = 'log.csv') {
+    const body = typeof sample === 'string' ? new TextEncoder().encode(sample) : sample
+    return this.send<T>('POST', `/api/logs/detect?fileName=${encodeURIComponent(fileName)}`, { headers: { 'content-type': 'application/octet-stream' }, body: new Uint8Array(body) })
+  }
+
   get<T = unknown>(path: string) {
     return this.request<T>('GET', path)
   }

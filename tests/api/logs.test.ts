@@ -305,15 +305,15 @@ describe('shared links', () => {
 describe('log profiles and detection', () => {
   it('offers a saved profile when a file with the same columns comes again', async () => {
     const sample = demo.csv.slice(0, 20_000)
-    const first = await clients.tuner.post<{ headerSignature: string, profile: unknown, mapping: Record<string, { column: string, unit: string }> }>('/api/logs/detect', { sample, fileName: 'a.csv' })
+    const first = await clients.tuner.detect<{ headerSignature: string, profile: unknown, mapping: Record<string, { column: string, unit: string }> }>(sample, 'a.csv')
     expect(first.status).toBe(200)
     expect(first.body.mapping.chargeTemp!.column).toBe('Charge air temp (°C)')
     const name = `Track logger ${Date.now()}`
     const saved = await clients.tuner.post<{ id: number }>('/api/log-profiles', { name, headerSignature: first.body.headerSignature, mapping: { chargeTemp: { column: 'Charge air temp (°C)', unit: 'degC' } } })
     expect(saved.status).toBe(201)
-    const again = await clients.driver.post<{ profile: { id: number, name: string } | null }>('/api/logs/detect', { sample, fileName: 'b.csv' })
+    const again = await clients.driver.detect<{ profile: { id: number, name: string } | null }>(sample, 'b.csv')
     expect(again.body.profile).toMatchObject({ id: saved.body.id, name })
-    const foreign = await clients.foreignOwner.post<{ profile: unknown }>('/api/logs/detect', { sample, fileName: 'c.csv' })
+    const foreign = await clients.foreignOwner.detect<{ profile: unknown }>(sample, 'c.csv')
     expect(foreign.body.profile).toBeNull()
     expect((await clients.driver.post('/api/log-profiles', { name: 'mine', headerSignature: 'abc', mapping: {} })).status).toBe(403)
     expect((await clients.foreignOwner.delete(`/api/log-profiles/${saved.body.id}`)).status).toBe(404)
@@ -321,9 +321,41 @@ describe('log profiles and detection', () => {
   })
 
   it('answers a sample that is not a log with a message', async () => {
-    const reply = await clients.tuner.post<{ message: string }>('/api/logs/detect', { sample: '\n\n', fileName: 'blank.csv' })
+    const reply = await clients.tuner.detect<{ message: string }>('\n\n', 'blank.csv')
     expect(reply.status).toBe(422)
     expect(reply.body.message).toBe('The file is empty (only blank lines). Upload the CSV export of the log itself.')
+  })
+
+  it('answers an empty sample, or one sent as JSON text, with what to send', async () => {
+    const empty = await clients.tuner.detect<{ message: string }>(new Uint8Array(0), 'empty.csv')
+    expect(empty.status).toBe(400)
+    expect(empty.body.message).toMatch(/empty/)
+    const json = await clients.tuner.post<{ message: string }>('/api/logs/detect', { sample: demo.csv.slice(0, 2000), fileName: 'a.csv' })
+    expect(json.status).toBe(415)
+    expect(json.body.message).toMatch(/application\/octet-stream/)
+  })
+
+  // The demo log as an older Windows program (one byte 0xB0 for °) or a UTF-16 logger writes it.
+  const header = demo.csv.slice(0, demo.csv.indexOf('\n'))
+  const encodings: Array<[string, (text: string) => Uint8Array]> = [
+    ['UTF-16 LE with a byte-order mark', text => new Uint8Array([0xFF, 0xFE, ...Buffer.from(text, 'utf16le')])],
+    ['Windows-1252', text => new Uint8Array(Buffer.from(text, 'latin1'))],
+  ]
+
+  it.each(encodings)('reads a %s sample with the same clean headers as the import', async (_label, encode) => {
+    const bytes = encode(demo.csv)
+    // The page sends the first bytes of the file, cut wherever the limit falls.
+    const detected = await clients.tuner.detect<{ columns: Array<{ header: string }>, mapping: Record<string, { column: string }> }>(bytes.subarray(0, 4001), 'old-logger.csv')
+    expect(detected.status).toBe(200)
+    expect(header).toContain('Charge air temp (°C)')
+    expect(detected.body.columns.map(c => c.header)).toEqual(header.split(','))
+    expect(detected.body.mapping.chargeTemp!.column).toBe('Charge air temp (°C)')
+
+    const uploaded = await clients.tuner.upload<{ id: number, mapping: Record<string, { column: string }> }>('/api/logs', { vehicleId: ids.driverCar }, { name: 'old-logger.csv', content: bytes })
+    expect(uploaded.status).toBe(201)
+    for (const [channel, entry] of Object.entries(detected.body.mapping)) {
+      if (entry.column) expect(uploaded.body.mapping[channel]?.column, channel).toBe(entry.column)
+    }
   })
 })
 

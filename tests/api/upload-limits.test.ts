@@ -76,16 +76,20 @@ describe('an upload over the size limit, whatever the headers say', () => {
 })
 
 describe('POST /api/logs/detect', () => {
-  it('refuses a sample over 512 KB', async () => {
-    const reply = await tuner.post<{ message: string }>('/api/logs/detect', { sample: demo.csv.slice(0, 1000).padEnd(530_000, '1'), fileName: 'a.csv' })
-    expect(reply.status).toBe(400)
-    expect(reply.body.message).toMatch(/512 KB/)
+  it('refuses a sample over 512 KB with a 413 that says how much to send', async () => {
+    const reply = await tuner.detect<{ message: string }>(demo.csv.slice(0, 1000).padEnd(530_000, '1'), 'a.csv')
+    expect(reply.status).toBe(413)
+    expect(reply.body.message).toMatch(/first 512 KB/)
+    const limit = new Uint8Array(512 * 1024).fill(0x31)
+    limit.set(new TextEncoder().encode(demo.csv.slice(0, 1000)))
+    const atTheLimit = await tuner.detect(limit, 'a.csv')
+    expect(atTheLimit.status).toBe(200)
   })
 
   it('does not turn a sample with thousands of columns into an answer many times its size', async () => {
     const columns = 40_000
     const sample = `Time (s),${Array.from({ length: columns }, (_, i) => `c${i}`).join(',')}\n0,${Array(columns).fill('1').join(',')}\n`.slice(0, 500_000)
-    const response = await fetch(`${baseUrl}/api/logs/detect`, { method: 'POST', headers: { 'content-type': 'application/json', 'cookie': tuner.cookie, 'origin': baseUrl }, body: JSON.stringify({ sample, fileName: 'wide.csv' }) })
+    const response = await fetch(`${baseUrl}/api/logs/detect?fileName=wide.csv`, { method: 'POST', headers: { 'content-type': 'application/octet-stream', 'cookie': tuner.cookie, 'origin': baseUrl }, body: sample })
     const text = await response.text()
     expect(text.length).toBeLessThan(300_000)
     expect(response.status).toBe(422)
@@ -94,7 +98,7 @@ describe('POST /api/logs/detect', () => {
 
   it('trims long cells in the preview', async () => {
     const sample = `Time (s),Charge air temp (°C),Ambient temp (°C)\n${Array.from({ length: 30 }, (_, i) => `${i},${'4'.repeat(15_000)},30`).join('\n')}\n`
-    const response = await fetch(`${baseUrl}/api/logs/detect`, { method: 'POST', headers: { 'content-type': 'application/json', 'cookie': tuner.cookie, 'origin': baseUrl }, body: JSON.stringify({ sample, fileName: 'long-cells.csv' }) })
+    const response = await fetch(`${baseUrl}/api/logs/detect?fileName=long-cells.csv`, { method: 'POST', headers: { 'content-type': 'application/octet-stream', 'cookie': tuner.cookie, 'origin': baseUrl }, body: sample })
     const text = await response.text()
     expect(response.status).toBe(200)
     expect(text.length).toBeLessThan(50_000)

@@ -13,7 +13,7 @@ afterAll(() => {
   rmSync(dir, { recursive: true, force: true })
 })
 
-function writeLog(name: string, csv: string) {
+function writeLog(name: string, csv: string | Uint8Array) {
   const path = join(dir, name)
   writeFileSync(path, csv)
   return path
@@ -166,6 +166,43 @@ describe('the tuner corrects a mapping and saves it as a profile', () => {
       await expect(page.getByTestId('mapping-column-chargeTemp').inputValue()).resolves.toBe('Sensor T2 (°C)')
       await expect(page.getByTestId('mapping-column-ambientTemp').inputValue()).resolves.toBe('Sensor T0 (°C)')
       await screenshot(page, 'logs-tuner-profile-offered')
+    }
+    finally {
+      await browser.close()
+    }
+  })
+})
+
+describe('a log saved as UTF-16 by its logger', () => {
+  it('shows clean column names in the mapping form and the preview, and uploads', async () => {
+    const demo = generateDemoLog('stock-core-hot-day')
+    const utf16 = new Uint8Array([0xFF, 0xFE, ...Buffer.from(demo.csv.replaceAll('\n', '\r\n'), 'utf16le')])
+    const browser = await openBrowser(DESKTOP)
+    try {
+      const { page } = browser
+      await signInThroughPage(page, 'tuner@kestrel.test')
+      await page.getByTestId('home-tuner').waitFor()
+      await page.goto('/logs/new')
+      await page.getByTestId('upload-vehicle').selectOption({ index: 1 })
+      await page.getByTestId('upload-file-input').setInputFiles(writeLog('utf16-logger.csv', utf16))
+      await page.getByTestId('mapping-form').waitFor()
+      await page.getByTestId('upload-preview').waitFor()
+      await expect(page.getByTestId('mapping-column-chargeTemp').inputValue()).resolves.toBe('Charge air temp (°C)')
+      await expect(page.getByTestId('mapping-column-ambientTemp').inputValue()).resolves.toBe('Ambient temp (°C)')
+      const options = await page.getByTestId('mapping-column-chargeTemp').locator('option').allTextContents()
+      expect(options.join('|')).toContain('Pre-cooler temp (°C)')
+      const preview = await page.getByTestId('upload-preview').textContent()
+      expect(preview).toContain('Charge air temp (°C)')
+      // No stray NULs or replacement characters from reading UTF-16 as UTF-8.
+      const shown = `${preview}${options.join('')}`
+      expect(shown.includes('\u0000') || shown.includes('\uFFFD')).toBe(false)
+      await screenshot(page, 'logs-tuner-utf16-mapping')
+      await page.setViewportSize(PHONE)
+      await screenshot(page, 'logs-tuner-utf16-mapping-phone')
+
+      await page.getByTestId('upload-submit').click()
+      await page.getByTestId('log-report').waitFor({ timeout: 45_000 })
+      await expect(page.getByTestId('pull-row').count()).resolves.toBe(6)
     }
     finally {
       await browser.close()

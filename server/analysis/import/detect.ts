@@ -9,7 +9,7 @@ import { LogImportError } from './errors'
 
 export type Delimiter = ',' | ';' | '\t'
 export type LineEnding = 'lf' | 'crlf' | 'cr'
-export type SourceEncoding = 'utf-8' | 'utf-16le' | 'utf-16be'
+export type SourceEncoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252'
 
 export interface DetectedFormat {
   encoding: SourceEncoding
@@ -75,7 +75,11 @@ const SAMPLE_ROWS = 2000
 
 const UTF8_BOM = [0xEF, 0xBB, 0xBF]
 
-/** Which text encoding the bytes use, judged by a byte-order mark or by NUL bytes. */
+/**
+ * Which text encoding the bytes use, judged by a byte-order mark, by NUL bytes (UTF-16 without a
+ * mark), or else by whether they are valid UTF-8: bytes that are not (a lone 0xB0 for `°`) come
+ * from an older Windows program and are read as Windows-1252, of which Latin-1 is a part.
+ */
 export function detectEncoding(bytes: Uint8Array): { encoding: SourceEncoding, bom: boolean } {
   if (bytes[0] === UTF8_BOM[0] && bytes[1] === UTF8_BOM[1] && bytes[2] === UTF8_BOM[2]) return { encoding: 'utf-8', bom: true }
   if (bytes[0] === 0xFF && bytes[1] === 0xFE) return { encoding: 'utf-16le', bom: true }
@@ -92,7 +96,19 @@ export function detectEncoding(bytes: Uint8Array): { encoding: SourceEncoding, b
   }
   if (oddNul > n / 4 && evenNul === 0) return { encoding: 'utf-16le', bom: false }
   if (evenNul > n / 4 && oddNul === 0) return { encoding: 'utf-16be', bom: false }
-  return { encoding: 'utf-8', bom: false }
+  return { encoding: isUtf8(bytes) ? 'utf-8' : 'windows-1252', bom: false }
+}
+
+// A character cut off at the end of a sample is not a fault (`stream: true` keeps it pending).
+function isUtf8(bytes: Uint8Array): boolean {
+  if (bytes.every(byte => byte < 0x80)) return true
+  try {
+    new TextDecoder('utf-8', { fatal: true }).decode(bytes, { stream: true })
+    return true
+  }
+  catch {
+    return false
+  }
 }
 
 /** Decode a byte prefix; a multi-byte character cut at the end is dropped, not replaced. */

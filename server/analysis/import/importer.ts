@@ -147,7 +147,8 @@ function assertText(head: Uint8Array, encoding: string): void {
   if (starts(ZIP_MAGIC) || starts(OLE_MAGIC)) {
     throw new LogImportError('NOT_TEXT', 'This looks like a spreadsheet or archive, not a CSV text file. Open it in the spreadsheet program, save it as CSV (comma or semicolon separated), and upload that file.')
   }
-  if (encoding !== 'utf-8') return
+  // UTF-16 has a NUL in every other byte of plain text; the control-character count is for 8-bit text.
+  if (encoding === 'utf-16le' || encoding === 'utf-16be') return
   let control = 0
   for (let i = 0; i < head.length; i++) {
     const b = head[i]!

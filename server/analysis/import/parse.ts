@@ -8,12 +8,13 @@
 // The unit tests run both on the same inputs and require identical arrays.
 import { Buffer } from 'node:buffer'
 import { createReadStream } from 'node:fs'
+import { Transform } from 'node:stream'
 import Papa from 'papaparse'
 import { CHANNELS } from '../../../shared/quantities/channels'
 import type { TimeFormat, ValueChannelId } from '../../../shared/quantities/channels'
 import { conversionFor, quantityOf } from '../../../shared/quantities/units'
 import type { Unit } from '../../../shared/quantities/units'
-import type { DetectedFormat } from './detect'
+import type { DetectedFormat, SourceEncoding } from './detect'
 import { readNumberCell, readTimeCell } from './detect'
 import { LogImportError } from './errors'
 
@@ -596,17 +597,55 @@ function parseTextRobust(sink: ColumnSink, text: string): void {
   })
 }
 
-async function parseFileRobust(sink: ColumnSink, path: string, encoding: BufferEncoding, head: string): Promise<void> {
+// The file is read in 1 MB chunks, each decoded with the sample's decoder (a character split
+// between chunks waits for the next), and fed to papaparse as a stream of text, so no encoding
+// holds the whole file in memory. (Papaparse's duplex stream mode never ended here once a file
+// filled more than one read; its plain readable-stream input does.)
+async function parseFileRobust(sink: ColumnSink, path: string, encoding: SourceEncoding, head: string): Promise<void> {
   const skip = robustSkipRows(sink.plan.format, head)
-  const parser = Papa.parse(Papa.NODE_STREAM_INPUT, { delimiter: sink.plan.format.delimiter, skipEmptyLines: true })
-  const input = createReadStream(path, { encoding, highWaterMark: 1 << 20 })
-  input.on('error', error => parser.destroy(error))
-  input.pipe(parser)
-  let index = 0
-  for await (const cells of parser as AsyncIterable<string[]>) {
-    index++
-    if (index > skip) robustRow(sink, cells, index)
-  }
+  const bytes = createReadStream(path, { highWaterMark: 1 << 20 })
+  const decoder = new TextDecoder(encoding)
+  const text = new Transform({
+    readableObjectMode: true,
+    transform(chunk: Buffer, _encoding, callback) {
+      const decoded = decoder.decode(chunk, { stream: true })
+      callback(null, decoded || undefined)
+    },
+    flush(callback) {
+      callback(null, decoder.decode() || undefined)
+    },
+  })
+  await new Promise<void>((resolve, reject) => {
+    let index = 0
+    let failed = false
+    const fail = (error: unknown) => {
+      if (failed) return
+      failed = true
+      bytes.destroy()
+      reject(error)
+    }
+    bytes.on('error', fail)
+    Papa.parse<string[]>(bytes.pipe(text) as unknown as File, {
+      delimiter: sink.plan.format.delimiter,
+      skipEmptyLines: true,
+      step: (results, parser) => {
+        if (failed) return
+        index++
+        if (index <= skip) return
+        try {
+          robustRow(sink, results.data, index)
+        }
+        catch (error) {
+          parser.abort()
+          fail(error)
+        }
+      },
+      complete: () => {
+        if (!failed) resolve()
+      },
+      error: fail,
+    })
+  })
 }
 
 /** Bytes of a log held in memory or in a file. */
@@ -617,8 +656,8 @@ export type ParseSource = { kind: 'bytes', bytes: Uint8Array } | { kind: 'file',
  * preamble rows for papaparse).
  */
 export async function parseSource(source: ParseSource, plan: ParsePlan, head: string): Promise<ParseResult> {
-  const utf16 = plan.format.encoding !== 'utf-8'
-  if (!plan.format.quoted && !utf16) {
+  // The byte-level reader reads UTF-8 only; other encodings (rare) take the papaparse path.
+  if (!plan.format.quoted && plan.format.encoding === 'utf-8') {
     const sink = new ColumnSink(plan)
     const reader = new FastCsvReader(sink)
     try {
@@ -642,13 +681,8 @@ export async function parseSource(source: ParseSource, plan: ParsePlan, head: st
     const text = new TextDecoder(plan.format.encoding).decode(source.bytes)
     parseTextRobust(sink, text)
   }
-  else if (plan.format.encoding === 'utf-16be') {
-    // Node streams cannot decode big-endian UTF-16; such files are rare and small.
-    const { readFile } = await import('node:fs/promises')
-    parseTextRobust(sink, new TextDecoder('utf-16be').decode(await readFile(source.path)))
-  }
   else {
-    await parseFileRobust(sink, source.path, plan.format.encoding === 'utf-16le' ? 'utf16le' : 'utf8', head)
+    await parseFileRobust(sink, source.path, plan.format.encoding, head)
   }
   return sink.finish()
 }

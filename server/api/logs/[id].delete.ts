@@ -1,4 +1,3 @@
-import { rm } from 'node:fs/promises'
 import { eq } from 'drizzle-orm'
 
 export default defineEventHandler(async (event) => {
@@ -11,7 +10,7 @@ export default defineEventHandler(async (event) => {
     recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'deleted', entity: 'log', entityId: log.id, detail: { originalName: log.originalName } })
   })
   forgetImported(log.id)
-  await rm(logFilePath(log.id), { force: true })
+  await removeLogFile(log.id)
   setResponseStatus(event, 204)
   return null
 })

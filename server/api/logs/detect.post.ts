@@ -2,16 +2,16 @@ import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { previewColumns } from '../../analysis'
 
-// The page sends the first 512 KB of the file (at most as many characters); the answer is kept
-// small too: previews show short cells, and a file with more columns than any logger writes is
-// refused rather than described column by column (a 590 KB sample once became a 7 MB answer).
-const SAMPLE_CHARS = 512 * 1024
+// The page sends the first 512 KB of the file as bytes (application/octet-stream, read within that
+// limit by server/middleware/02.request-guard.ts), so the engine decodes them exactly as the import
+// will: a UTF-16 or Windows-1252 log shows the same headers here as after the upload. The answer
+// is kept small too: previews show short cells, and a file with more columns than any logger
+// writes is refused rather than described column by column (a 590 KB sample once became a 7 MB answer).
 const MAX_COLUMNS = 256
 const PREVIEW_CELL_CHARS = 40
 const MAX_ANSWER_CHARS = 256 * 1024
 
-const body = z.object({
-  sample: z.string().min(1, 'the file is empty').max(SAMPLE_CHARS, 'send only the first 512 KB of the file'),
+const query = z.object({
   fileName: z.string().max(200).default('log.csv'),
 })
 
@@ -22,12 +22,14 @@ const trimCell = (cell: string) => cell.length > PREVIEW_CELL_CHARS ? `${cell.sl
 export default defineEventHandler(async (event) => {
   const actor = await requireActor(event)
   if (!canUploadLogs(actor)) forbidden('Your role does not upload logs.')
-  const { sample, fileName } = await readBodyWith(event, body)
+  const { fileName } = readQueryWith(event, query)
   const problem = checkLogFile(fileName, 1)
   if (problem) throw createError({ statusCode: 415, message: problem })
+  const sample = await readRawBody(event, false)
+  if (!sample?.length) badRequest('The file is empty. Choose the CSV export of the log itself.')
   let preview
   try {
-    preview = await previewColumns(new TextEncoder().encode(sample), { rows: 20 })
+    preview = await previewColumns(sample, { rows: 20 })
   }
   catch (error) {
     asHttpError(error)

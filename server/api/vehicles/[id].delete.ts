@@ -1,4 +1,3 @@
-import { rm } from 'node:fs/promises'
 import { eq } from 'drizzle-orm'
 
 export default defineEventHandler(async (event) => {
@@ -14,7 +13,7 @@ export default defineEventHandler(async (event) => {
     recordAudit(tx, { workshopId: actor.workshopId, userId: actor.id, action: 'deleted', entity: 'vehicle', entityId: vehicle.id, detail: { description: vehicle.description, logs: logIds.length } })
   })
   // The rows are gone; now the stored files of its logs.
-  await Promise.all(logIds.map(log => rm(logFilePath(log.id), { force: true })))
+  await Promise.all(logIds.map(log => removeLogFile(log.id)))
   setResponseStatus(event, 204)
   return null
 })
