@@ -53,7 +53,6 @@ const FIELD_LABELS: Record<string, string> = {
   workshopName: 'workshop name',
   pageSize: 'page size',
   degC: '°C',
-  taxRatePct: 'tax rate',
   depositPct: 'deposit',
   powerKw: 'measured power',
   torqueNm: 'torque',
