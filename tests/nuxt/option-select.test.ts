@@ -26,4 +26,11 @@ describe('UiOptionSelect', () => {
     await wrapper.find('select').trigger('change')
     expect(wrapper.emitted('update:modelValue')).toEqual([[null], [CORE_CONSTRUCTIONS[0]]])
   })
+
+  it('shows a value as itself when it has no label', async () => {
+    const wrapper = await mountSuspended(UiOptionSelect, { props: { modelValue: 'EUR', options: ['EUR', 'GBP'] } })
+    expect(wrapper.findAll('option').map(o => o.text())).toEqual(['EUR', 'GBP'])
+    await wrapper.find('select').setValue('GBP')
+    expect(wrapper.emitted('update:modelValue')).toEqual([['GBP']])
+  })
 })
