@@ -64,18 +64,34 @@ function localPath(mounted: Mounted, logId: number) {
   return mounted.localBase ? join(mounted.localBase, 'logs', String(logId)) : undefined
 }
 
+// A storage that does not answer or refuses the key (a bucket gone, a secret rotated at the
+// provider) is a 503 that says so, not a 500: the log is intact, its file is out of reach for now.
+async function reading<T>(logId: number, read: () => Promise<T>): Promise<T> {
+  try {
+    return await read()
+  }
+  catch (error) {
+    console.error(`[uploads] The file of log ${logId} could not be read (${(error as Error).message}).`)
+    throw createError({ statusCode: 503, message: 'The log\'s file could not be read from the file storage just now. Nothing was changed; try again in a minute, and tell the workshop owner if it keeps happening.' })
+  }
+}
+
 /** Whether the log's file is stored. */
-export async function hasLogFile(logId: number): Promise<boolean> {
-  await mountUploads()
-  return uploads().hasItem(logKey(logId))
+export function hasLogFile(logId: number): Promise<boolean> {
+  return reading(logId, async () => {
+    await mountUploads()
+    return uploads().hasItem(logKey(logId))
+  })
 }
 
 /** The log's stored file for the engine, or null when it is not stored. */
-export async function storedLogSource(logId: number): Promise<StoredLogSource | null> {
-  const mounted = await mountUploads()
-  const path = localPath(mounted, logId)
-  if (path) return (await uploads().hasItem(logKey(logId))) ? { path } : null
-  return asBytes(await uploads().getItemRaw(logKey(logId)))
+export function storedLogSource(logId: number): Promise<StoredLogSource | null> {
+  return reading(logId, async () => {
+    const mounted = await mountUploads()
+    const path = localPath(mounted, logId)
+    if (path) return (await uploads().hasItem(logKey(logId))) ? { path } : null
+    return asBytes(await uploads().getItemRaw(logKey(logId)))
+  })
 }
 
 /** The log's stored file as a stream for a download, or null when it is not stored. */

@@ -223,4 +223,28 @@ describe('uploads kept in S3-compatible storage', () => {
     // With the key right again, the same upload is kept.
     expect((await api.upload(demo.csv)).status).toBe(201)
   })
+
+  it('answers 503 with what to do, not 500, when a stored file cannot be read back', async () => {
+    const api = await signIn(server)
+    const reply = await api.upload(demo.csv)
+    const { id } = await reply.json() as { id: number }
+    api.query('update analyses set engine_version = ? where log_id = ?', '0-old', id)
+    const secret = fake.secretAccessKey
+    fake.secretAccessKey = 'rotated-secret-the-server-does-not-know'
+    try {
+      for (const path of [`/api/logs/${id}/download`, `/api/logs/${id}/analysis`]) {
+        const refused = await api.call('GET', path)
+        expect(refused.status, path).toBe(503)
+        expect(((await refused.json()) as { message: string }).message).toMatch(/could not be read from the file storage just now.*try again in a minute/)
+      }
+    }
+    finally {
+      fake.secretAccessKey = secret
+    }
+    expect(fake.objects.get(`logs/${id}`)?.toString('utf8')).toBe(demo.csv)
+    const download = await api.call('GET', `/api/logs/${id}/download`)
+    expect(download.status).toBe(200)
+    expect(await download.text()).toBe(demo.csv)
+    expect((await api.call('GET', `/api/logs/${id}/analysis`)).status).toBe(200)
+  })
 })
