@@ -121,7 +121,7 @@ export function compareDynoRuns(runs: readonly DynoSideInput[], standard: DynoSt
   const change = `${changeKw >= 0 ? '+' : '−'}${Math.abs(changeKw).toFixed(1)} kW (${changePct >= 0 ? '+' : '−'}${Math.abs(changePct).toFixed(1)} %)`
   if (!interval) {
     verdictTone = 'too-few'
-    verdict = `Corrected power changed by ${change}. With ${before.length === 1 && after.length === 1 ? 'one dyno run a side' : 'fewer than two dyno runs on a side'} there is no interval: ${Math.abs(changePct) <= 3 ? 'a change this small is within the usual run-to-run spread.' : 'record two or three dyno runs a side to show it is more than run-to-run spread.'}`
+    verdict = `Corrected power changed by ${change}. With ${before.length === 1 && after.length === 1 ? 'one dyno run a side' : 'fewer than two dyno runs on a side'} there is no interval: ${Math.abs(changePct) <= 3 ? 'a change this small is within the usual run-to-run spread.' : 'two or three dyno runs a side would show whether it is more than run-to-run spread.'}`
   }
   else if (c.differenceExcludesZero && Math.abs(changePct) > 3) {
     verdictTone = changeKw > 0 ? 'better' : 'worse'

@@ -462,8 +462,8 @@ function assumptionsFor(effectivenessSource: 'measured' | 'estimated', flowSourc
       ? `The fitted core's effectiveness is the mean of ${pullCount} pull(s) measured with a pre-cooler sensor; heat soak is included, so its UA is on the low side.`
       : `The log has no pre-cooler temperature: the fitted core's effectiveness (mean of ${pullCount} pull(s)) is an estimate from the compressor relation, and so is everything calibrated from it.`,
     flowSource === 'maf'
-      ? 'Charge air flow: the mean of the air mass flow column over the pulls.'
-      : `Charge air flow by speed-density from engine size, engine speed, manifold pressure and charge temperature, with a volumetric efficiency of ${volumetricEfficiency.toFixed(2)} (Heywood 1988 §2.10, section from memory; 0.85–1.0 is common practice for a boosted engine).`,
+      ? 'Air mass flow: the mean of the log\'s air mass flow over the pulls.'
+      : `Air mass flow by speed-density from engine size, engine speed, boost and charge temperature, with a volumetric efficiency of ${volumetricEfficiency.toFixed(2)} (Heywood 1988 §2.10, section from memory; 0.85–1.0 is common practice for a boosted engine).`,
     `Cooling air through the core at ${Math.round(speedRatio * 100)} % of road speed (common practice, no source)${roadFromDesign ? '; the log has no road speed, so the design road speed stands in for it' : ''}.`,
     'Each core\'s heat conductance (UA) is the fitted core\'s split into equal charge-side and air-side halves (common practice, no source), each scaled by core volume (same fin and tube pitch) and by its stream\'s speed: charge side h ∝ Re^0.8 (Dittus–Boelter, Incropera et al. §8.5, from memory), air side h ∝ Re^0.5 (laminar fins, Incropera §7.2, from memory). A deeper core slows the charge air, so it gains less than its volume suggests.',
     'Crossflow core, both streams unmixed, steady state, c_p 1005 J/(kg·K) (ε-NTU, Incropera et al. 6th ed. §11.4, section from memory).',
@@ -471,11 +471,11 @@ function assumptionsFor(effectivenessSource: 'measured' | 'estimated', flowSourc
       ? `On the road no core reads what an ideal one would: part of its face gets little air behind the bumper beam and number plate, the air arriving is warmer than the ambient reading, and the charge picks heat up again after the core. Every core is taken to read ${ceiling.toFixed(2)} × the ideal core's effectiveness (common practice, no source: large front-mounts seldom read above about 0.9 on the road, from memory); the log is read the same way, so the fitted core comes out as measured.`
       : `On the road no core reads what an ideal one would; every core is taken to read ${ceiling.toFixed(2)} × the ideal core's effectiveness, raised from ${baseCeiling.toFixed(2)} because this log itself read ${(ceiling - CEILING_MARGIN).toFixed(2)} (common practice, no source).`,
     designFlowSource === 'power'
-      ? 'Design air flow from the target power with full-load fuel use and mixture figures (common practice, no source).'
-      : 'Design air flow scaled from the log by manifold pressure.',
+      ? 'Design air mass flow from the target power with full-load fuel use and mixture figures (common practice, no source).'
+      : 'Design air mass flow scaled from the log by boost.',
     etaLog !== null
-      ? `Compressor outlet temperature from the pressure ratio with an efficiency of ${etaLog.toFixed(2)} backed out of the log's pre-cooler readings.`
-      : `Compressor outlet temperature from the pressure ratio with an assumed efficiency of ${DEFAULT_COMPRESSOR_EFFICIENCY.toFixed(2)} (common practice, no source).`,
+      ? `Pre-cooler temperature (the air leaving the turbo) from the pressure ratio with an efficiency of ${etaLog.toFixed(2)} backed out of the log's pre-cooler readings.`
+      : `Pre-cooler temperature (the air leaving the turbo) from the pressure ratio with an assumed efficiency of ${DEFAULT_COMPRESSOR_EFFICIENCY.toFixed(2)} (common practice, no source).`,
     'Density gain at equal manifold pressure (ideal gas); power recovered by the density law, an upper bound, less the pressure-drop change at the same compressor pressure.',
     `Pressure drop ∝ air flow² × depth ÷ face area (common practice, no source), anchored at ${PRESSURE_DROP_ANCHOR.dropKpa} kPa for a 600 × 300 × 76 mm core at ${PRESSURE_DROP_ANCHOR.massFlowKgS} kg/s.`,
   ]

@@ -7,6 +7,6 @@ export function findOpenInvite(token: string) {
     .innerJoin(workshops, eq(workshops.id, invites.workshopId))
     .where(and(eq(invites.tokenHash, hashToken(token)), isNull(invites.acceptedAt), gt(invites.expiresAt, new Date())))
     .get()
-  if (!row) notFound('Invitation (it may have expired or been used already)')
+  if (!row) throw createError({ statusCode: 404, message: 'This invitation has expired, was used already, or the link is cut short. Ask the workshop for a new one.' })
   return row
 }

@@ -151,7 +151,7 @@ describe('MappingForm with columns the engine did not recognise', () => {
     expect(offer.exists()).toBe(true)
     // chargeTemp is taken already, so only the ambient temperature is offered for "Temp B".
     const select = wrapper.find('[data-testid="unrecognised-Temp B (°F)"] select')
-    expect(select.findAll('option').map(o => o.text())).toEqual(['Not used', 'Ambient temperature (in °F)'])
+    expect(select.findAll('option').map(o => o.text())).toEqual(['Not used', 'Ambient temperature, in °F'])
     await select.setValue('ambientTemp')
     expect(draft.mapping.ambientTemp).toEqual({ column: 'Temp B (°F)', unit: 'degF' })
     expect(wrapper.find('[data-testid="unrecognised-Temp B (°F)"]').exists()).toBe(false)

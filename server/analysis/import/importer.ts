@@ -4,7 +4,7 @@ import { Buffer } from 'node:buffer'
 import { open } from 'node:fs/promises'
 import { CONDITION_BOUNDS } from '../../../shared/utils/conditions'
 import { isaPressureAtElevationPa } from '../atmosphere'
-import { CHANNELS, VALUE_CHANNEL_IDS } from '../../../shared/quantities/channels'
+import { CHANNELS, MAPPABLE_CHANNELS, VALUE_CHANNEL_IDS, mappingUnitLabel } from '../../../shared/quantities/channels'
 import type { ChannelId, LogChannels, TimeFormat, ValueChannelId } from '../../../shared/quantities/channels'
 import { P0_PA } from '../constants'
 import { conversionFor } from '../../../shared/quantities/units'
@@ -188,6 +188,12 @@ async function sampleOf(source: LogSource) {
   return { opened, text, sample }
 }
 
+// Messages name a channel and a unit as the column form shows them, never by their code.
+const channelWords = (channel: ChannelId) => {
+  const label = MAPPABLE_CHANNELS.find(c => c.id === channel)?.label ?? channel
+  return label.charAt(0).toLowerCase() + label.slice(1)
+}
+
 function mappingWarnings(mapping: LogMapping): ImportWarning[] {
   const warnings: ImportWarning[] = []
   for (const [channel, entry] of Object.entries(mapping) as [ChannelId, NonNullable<LogMapping[ChannelId]>][]) {
@@ -196,7 +202,7 @@ function mappingWarnings(mapping: LogMapping): ImportWarning[] {
         code: 'LOW_CONFIDENCE_MAPPING',
         channel,
         column: entry.column,
-        message: `Column "${entry.column}" was taken as ${channel} with low confidence (${entry.confidence}). Check the mapping and correct it if that is wrong.`,
+        message: `Column "${entry.column}" was taken as the ${channelWords(channel)}, with a confidence of only ${Math.round(entry.confidence * 100)} %. Check the mapping and correct it if that is wrong.`,
       })
     }
   }
@@ -206,7 +212,7 @@ function mappingWarnings(mapping: LogMapping): ImportWarning[] {
   if (guessed.length > 0) {
     warnings.push({
       code: 'UNIT_GUESSED',
-      message: `These columns do not state their unit, so it was judged from the values: ${guessed.map(([channel, e]) => `"${e.column}" as ${channel} in ${e.unit}`).join('; ')}. Set the unit in the mapping if any is wrong.`,
+      message: `These columns do not state their unit, so it was judged from the values: ${guessed.map(([channel, e]) => `"${e.column}" as ${channelWords(channel)}, in ${mappingUnitLabel(channel, e.unit)}`).join('; ')}. Set the unit in the mapping if any is wrong.`,
     })
   }
   return warnings
@@ -411,12 +417,11 @@ function assembleChannels(parsed: ParseResult, plan: ParsePlan, mapping: LogMapp
       })
     }
     if (stats.outOfRange > 0) {
-      const spec = CHANNELS[slot.channel]
       warnings.push({
         code: 'OUT_OF_RANGE',
         channel: slot.channel,
         column: slot.header,
-        message: `${stats.outOfRange} value(s) in "${slot.header}" are outside what a ${spec.label.toLowerCase()} sensor can read (${slot.unit} assumed) and were treated as missing. Check the unit in the mapping.`,
+        message: `${stats.outOfRange} value(s) in "${slot.header}" are outside what a sensor can read for the ${channelWords(slot.channel)}, taking the unit as ${mappingUnitLabel(slot.channel, slot.unit)}, and were treated as missing. Check the unit in the mapping.`,
       })
     }
     if (stats.held > parsed.rowCount * 0.2) {

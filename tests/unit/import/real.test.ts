@@ -1,7 +1,7 @@
 // Trimmed excerpts of the two real logs (attribution in tests/fixtures/real/README.md).
 import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
-import { LogImportError, analyseLog, importLog } from '../../../server/analysis/index'
+import { LogImportError, analyseLog, importLog, previewColumns } from '../../../server/analysis/index'
 
 const fixture = (name: string) => ({ path: fileURLToPath(new URL(`../../fixtures/real/${name}`, import.meta.url)) })
 const K = 273.15
@@ -63,5 +63,17 @@ describe('petrol excerpt (CRLF, space after comma, trailing comma, empty units, 
     const result = analyseLog(log, { ambientTempC: 30 })
     expect(result.summary.ambientSource).toBe('entered')
     expect(result.summary.baroSource).toBe('channel')
+  })
+})
+
+describe('the upload form\'s messages about a petrol log with no units in its headings', () => {
+  it('name the sensor and the unit as the mapping form does, never by their codes', async () => {
+    const preview = await previewColumns(fixture('petrol-pulls-excerpt.csv'))
+    const messages = preview.warnings.map(w => w.message)
+    expect(messages).toContain('Column "INTAKE_AIR_TEMP ()" was taken as the charge temperature (after the intercooler), with a confidence of only 60 %. Check the mapping and correct it if that is wrong.')
+    const units = messages.find(m => m.startsWith('These columns do not state their unit'))
+    expect(units).toContain('"INTAKE_AIR_TEMP ()" as charge temperature (after the intercooler), in °C')
+    expect(units).toContain('"INTAKE_MANIFOLD_PRESSURE ()" as boost (absolute, manifold pressure), in kPa')
+    for (const message of messages) expect(message).not.toMatch(/\b(chargeTemp|manifoldPressure|baro|degC)\b/)
   })
 })
