@@ -203,9 +203,10 @@ export async function quotePdfFor(quote: QuoteRow) {
   return { bytes: await renderQuotePdf(input, await quoteFontBytes()), filename: `${quote.number}.pdf` }
 }
 
-interface SizingCandidate { coreId?: number, predictedEffectiveness?: number, chargeTempC?: number, powerRecoveredPct?: number, reason?: string }
+interface SizingCandidate { coreId?: number, predictedEffectiveness?: number, chargeTempC?: number, powerRecoveredPct?: number, pressureDropChangeKpa?: number }
 
-// One sentence from the saved sizing for the quoted core, when there is one.
+// One sentence from the saved sizing for the quoted core, when there is one. It is written for the
+// customer: what this core would do on the design day, not its rank among cores they never saw.
 export function sizingNote(sizing: Record<string, unknown> | null, coreId: number | null, coreName: string | null) {
   const result = sizing?.result as { candidates?: SizingCandidate[] } | undefined
   const design = sizing?.design as { ambientC?: number } | undefined
@@ -215,6 +216,9 @@ export function sizingNote(sizing: Record<string, unknown> | null, coreId: numbe
     candidate.predictedEffectiveness != null ? `predicted effectiveness ${Math.round(candidate.predictedEffectiveness * 100)} %` : null,
     candidate.chargeTempC != null ? `charge temperature about ${candidate.chargeTempC.toFixed(0)} °C${design?.ambientC != null ? ` on a ${design.ambientC} °C day` : ''}` : null,
     candidate.powerRecoveredPct != null ? `about ${candidate.powerRecoveredPct.toFixed(1)} % of power recovered` : null,
+    candidate.pressureDropChangeKpa != null && Math.abs(candidate.pressureDropChangeKpa) >= 0.5
+      ? `${Math.abs(candidate.pressureDropChangeKpa).toFixed(1)} kPa ${candidate.pressureDropChangeKpa < 0 ? 'less' : 'more'} boost lost across the core`
+      : null,
   ].filter(Boolean)
-  return `${coreName ?? 'The quoted core'}: ${parts.join(', ')}.${candidate.reason ? ` ${candidate.reason}` : ''} An estimate from this car's own log, to be confirmed by a log after fitting.`
+  return `${coreName ?? 'The quoted core'}: ${parts.join(', ')}, against the core fitted when the log was made. An estimate from this car's own log, to be confirmed by a log after fitting.`
 }
