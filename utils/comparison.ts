@@ -2,8 +2,6 @@
 import type { DisplayTemperatureUnit } from '#shared/quantities/display'
 import { formatTemperatureDifference } from './displayUnits'
 
-const minus = (text: string) => text.replace(/^-/, '−')
-
 /** Effectiveness as a percentage: 0.683 → "68.3 %". */
 export function formatEffectiveness(value: number | null | undefined, digits = 1): string {
   return value == null || !Number.isFinite(value) ? '—' : `${(value * 100).toFixed(digits)} %`
@@ -18,7 +16,7 @@ export function formatPoints(value: number | null | undefined, digits = 1): stri
 /** A signed temperature change in the display unit: −18.1 → "−18.1 K". */
 export function formatSignedDifference(valueK: number | null | undefined, unit: DisplayTemperatureUnit, digits = 1): string {
   if (valueK == null || !Number.isFinite(valueK)) return '—'
-  return `${valueK > 0 ? '+' : ''}${minus(formatTemperatureDifference(valueK, unit, digits))}`
+  return `${valueK > 0 ? '+' : ''}${formatTemperatureDifference(valueK, unit, digits)}`
 }
 
 /** "low to high" with a formatter, or a dash when there is no interval. */
