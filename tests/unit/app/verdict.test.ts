@@ -47,6 +47,12 @@ describe('verdictFor', () => {
     expect(v.level).toBe('good')
     expect(v.summary).toMatch(/^Over two pulls the charge air stayed steady \(−1\.5 K from the first to the last pull\)/)
     expect(v.consider).toEqual([NO_SOAK])
+    // The same pulls on a 12 °C day sit about 27 K over ambient: still no soak, and the one suggestion says why a larger core.
+    const cool = verdictFor(analyseLog(log, { ambientTempC: 12 }), { ratedPowerKw: 100, fuel: 'petrol' })
+    expect(cool.level).toBe('good')
+    expect(cool.consider).toEqual([
+      'No heat soak to speak of across the pulls, but the charge air runs 27.0 K above the ambient temperature on every pull: a larger core, or better air flow to it (ducting, no blocked grille), would lower that. More than 25 K over ambient is a lot for a working intercooler (common practice, no source); ask the workshop whether a change would pay off.',
+    ])
   })
 
   it('tells the driver how far the charge air climbed and what the hottest run cost', () => {
