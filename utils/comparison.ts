@@ -1,10 +1,11 @@
 // Plain-number wording of a comparison's figures (pure; the units store decides °C or °F).
 import type { DisplayTemperatureUnit } from '#shared/quantities/display'
+import { formatFixed } from '#shared/utils/format'
 import { formatTemperatureDifference } from './displayUnits'
 
 /** Effectiveness as a percentage: 0.683 → "68.3 %". */
 export function formatEffectiveness(value: number | null | undefined, digits = 1): string {
-  return value == null || !Number.isFinite(value) ? '—' : `${(value * 100).toFixed(digits)} %`
+  return value == null || !Number.isFinite(value) ? '—' : `${formatFixed(value * 100, digits)} %`
 }
 
 /** A change of effectiveness in percentage points, always signed: 0.18 → "+18.0 points". */

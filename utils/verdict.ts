@@ -98,7 +98,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
   const leftOutSentence = mostLeftOut
     ? `${leftOut.length} of the ${found} pulls found were left out, because ${[...new Set(leftOut.flatMap(p => p.reasons.map(r => REASON_PLAIN[r] ?? r)))].join(' and ')}.`
     : ''
-  const effectivenessFact = (value: number | null | undefined) => (value == null ? '—' : `${(value * 100).toFixed(0)} %`)
+  const effectivenessFact = (value: number | null | undefined) => (value == null ? '—' : `${formatFixed(value * 100, 0)} %`)
   const facts: Verdict['facts'] = [
     { label: 'Pulls analysed', value: String(summary.pullCount) },
     { label: 'Charge-air rise, first to last pull', value: formatTemperatureDifference(summary.chargeTempRiseK, t) },
@@ -110,7 +110,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
           ...(summary.measuredPullCount ? [{ label: `Effectiveness, measured (${summary.measuredPullCount} ${pullWord(summary.measuredPullCount)})`, value: effectivenessFact(summary.meanEffectivenessMeasured) }] : []),
           ...(summary.estimatedPullCount ? [{ label: `Effectiveness, estimated (${summary.estimatedPullCount} ${pullWord(summary.estimatedPullCount)}; reads low)`, value: effectivenessFact(summary.meanEffectivenessEstimated) }] : []),
         ]
-      : [{ label: 'Mean effectiveness', value: summary.meanEffectiveness == null ? '—' : `${(summary.meanEffectiveness * 100).toFixed(0)} %${summary.effectivenessSource === 'estimated' ? ' (estimated)' : ''}` }]),
+      : [{ label: 'Mean effectiveness', value: summary.meanEffectiveness == null ? '—' : `${formatFixed(summary.meanEffectiveness * 100, 0)} %${summary.effectivenessSource === 'estimated' ? ' (estimated)' : ''}` }]),
     { label: 'Most power lost vs coolest pull', value: summary.maxPowerLossVsCoolestPct == null ? '—' : pct(summary.maxPowerLossVsCoolestPct) },
   ]
   if (summary.recoveryTimeConstantS != null) facts.push({ label: 'Core recovery time', value: `${summary.recoveryTimeConstantS.toFixed(0)} s` })

@@ -15,6 +15,7 @@ import {
 } from '../../../shared/quantities/display'
 import { convert, HP_W, isUnit, PS_W, PSI_PA } from '../../../shared/quantities/units'
 import { formatFixed, formatPower, formatPressure, formatTemperature } from '../../../shared/utils/format'
+import { formatEffectiveness } from '../../../utils/comparison'
 import { formatTemperatureDifference, seriesConversion, temperatureIn } from '../../../utils/displayUnits'
 
 describe('display units come from the unit catalogue', () => {
@@ -59,6 +60,8 @@ describe('display units come from the unit catalogue', () => {
     expect(formatTemperatureDifference(-1, 'F')).toBe('−1.8 °F')
     expect(formatPower(-3.04, 'kW', 1)).toBe('−3.0 kW')
     expect(formatPressure(-0.02, 'kPa')).toBe('0.0 kPa')
+    // A faulty sensor can make an effectiveness negative.
+    expect(formatEffectiveness(-0.052)).toBe('−5.2 %')
   })
 
   it('converts temperature differences by the scale only (1 K = 1.8 °F of difference, exact)', () => {
