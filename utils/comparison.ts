@@ -1,12 +1,11 @@
 // Plain-number wording of a comparison's figures (pure; the units store decides °C or °F).
 import type { DisplayTemperatureUnit } from '#shared/quantities/display'
+import { formatFixed } from '#shared/utils/format'
 import { formatTemperatureDifference } from './displayUnits'
-
-const minus = (text: string) => text.replace(/^-/, '−')
 
 /** Effectiveness as a percentage: 0.683 → "68.3 %". */
 export function formatEffectiveness(value: number | null | undefined, digits = 1): string {
-  return value == null || !Number.isFinite(value) ? '—' : `${(value * 100).toFixed(digits)} %`
+  return value == null || !Number.isFinite(value) ? '—' : `${formatFixed(value * 100, digits)} %`
 }
 
 /** A change of effectiveness in percentage points, always signed: 0.18 → "+18.0 points". */
@@ -18,7 +17,7 @@ export function formatPoints(value: number | null | undefined, digits = 1): stri
 /** A signed temperature change in the display unit: −18.1 → "−18.1 K". */
 export function formatSignedDifference(valueK: number | null | undefined, unit: DisplayTemperatureUnit, digits = 1): string {
   if (valueK == null || !Number.isFinite(valueK)) return '—'
-  return `${valueK > 0 ? '+' : ''}${minus(formatTemperatureDifference(valueK, unit, digits))}`
+  return `${valueK > 0 ? '+' : ''}${formatTemperatureDifference(valueK, unit, digits)}`
 }
 
 /** "low to high" with a formatter, or a dash when there is no interval. */

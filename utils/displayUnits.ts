@@ -10,6 +10,7 @@ import {
   type DisplayPressureUnit,
   type DisplayTemperatureUnit,
 } from '#shared/quantities/display'
+import { formatFixed } from '#shared/utils/format'
 import { conversionBetween, parseUnit, quantityOf, type Conversion } from '#shared/quantities/units'
 
 export { temperatureDifferenceSymbol }
@@ -35,7 +36,7 @@ export const temperatureSymbol = (unit: DisplayTemperatureUnit) => displaySymbol
 
 export function formatTemperatureDifference(valueK: number | null | undefined, unit: DisplayTemperatureUnit, digits = 1): string {
   if (valueK == null || !Number.isFinite(valueK)) return '—'
-  return `${temperatureDifferenceIn(valueK, unit).toFixed(digits)} ${temperatureDifferenceSymbol(unit)}`
+  return `${formatFixed(temperatureDifferenceIn(valueK, unit), digits)} ${temperatureDifferenceSymbol(unit)}`
 }
 
 const IDENTITY: Conversion = { scale: 1, offset: 0 }

@@ -4,6 +4,7 @@
 // it; past ~4 % it shows on a dyno sheet and in the seat.
 import { displaySymbol, toDisplay, type DisplayPowerUnit, type DisplayTemperatureUnit } from '#shared/quantities/display'
 import type { AnalysisResult, LogVehicle } from '#shared/types/report'
+import { formatFixed } from '#shared/utils/format'
 import { formatTemperatureDifference } from './displayUnits'
 
 export type VerdictLevel = 'good' | 'fair' | 'poor' | 'unknown'
@@ -33,7 +34,7 @@ export const VERDICT_THRESHOLDS = {
   goodLossPct: 1.5,
   /** Above this the soak is judged heavy, %. */
   poorLossPct: 4,
-  /** Charge air this far above ambient on average is a lot for a working intercooler, K. */
+  /** Charge air this far above ambient on average is a lot for a working intercooler, K (common practice, no source). */
   highDeltaK: 25,
   /** Effectiveness below this is low for an air-to-air core at full load. */
   lowEffectiveness: 0.6,
@@ -44,10 +45,10 @@ export interface VerdictUnits {
   power: DisplayPowerUnit
 }
 
-const pct = (value: number, digits = 1) => `${value.toFixed(digits)} %`
+const pct = (value: number, digits = 1) => `${formatFixed(value, digits)} %`
 function powerText(kw: number, unit: DisplayPowerUnit): string {
   const shown = toDisplay(kw, 'power', unit)
-  return `${shown.toFixed(shown < 10 ? 1 : 0)} ${displaySymbol('power', unit)}`
+  return `${formatFixed(shown, shown < 10 ? 1 : 0)} ${displaySymbol('power', unit)}`
 }
 const pullWord = (n: number) => (n === 1 ? 'pull' : 'pulls')
 const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve']
@@ -97,7 +98,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
   const leftOutSentence = mostLeftOut
     ? `${leftOut.length} of the ${found} pulls found were left out, because ${[...new Set(leftOut.flatMap(p => p.reasons.map(r => REASON_PLAIN[r] ?? r)))].join(' and ')}.`
     : ''
-  const effectivenessFact = (value: number | null | undefined) => (value == null ? '—' : `${(value * 100).toFixed(0)} %`)
+  const effectivenessFact = (value: number | null | undefined) => (value == null ? '—' : `${formatFixed(value * 100, 0)} %`)
   const facts: Verdict['facts'] = [
     { label: 'Pulls analysed', value: String(summary.pullCount) },
     { label: 'Charge-air rise, first to last pull', value: formatTemperatureDifference(summary.chargeTempRiseK, t) },
@@ -109,7 +110,7 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
           ...(summary.measuredPullCount ? [{ label: `Effectiveness, measured (${summary.measuredPullCount} ${pullWord(summary.measuredPullCount)})`, value: effectivenessFact(summary.meanEffectivenessMeasured) }] : []),
           ...(summary.estimatedPullCount ? [{ label: `Effectiveness, estimated (${summary.estimatedPullCount} ${pullWord(summary.estimatedPullCount)}; reads low)`, value: effectivenessFact(summary.meanEffectivenessEstimated) }] : []),
         ]
-      : [{ label: 'Mean effectiveness', value: summary.meanEffectiveness == null ? '—' : `${(summary.meanEffectiveness * 100).toFixed(0)} %${summary.effectivenessSource === 'estimated' ? ' (estimated)' : ''}` }]),
+      : [{ label: 'Mean effectiveness', value: summary.meanEffectiveness == null ? '—' : `${formatFixed(summary.meanEffectiveness * 100, 0)} %${summary.effectivenessSource === 'estimated' ? ' (estimated)' : ''}` }]),
     { label: 'Most power lost vs coolest pull', value: summary.maxPowerLossVsCoolestPct == null ? '—' : pct(summary.maxPowerLossVsCoolestPct) },
   ]
   if (summary.recoveryTimeConstantS != null) facts.push({ label: 'Core recovery time', value: `${summary.recoveryTimeConstantS.toFixed(0)} s` })
@@ -192,10 +193,17 @@ export function verdictFor(analysis: AnalysisResult, vehicle: Pick<LogVehicle, '
     unknown: '',
   }[level]
 
+  // Two separate questions, told as one story: heat soak is the climb across the pulls; the
+  // temperature over ambient is how warm the charge air runs on each pull, soak or not.
+  const highDelta = delta != null && delta > VERDICT_THRESHOLDS.highDeltaK
   const consider: string[] = []
-  if (level === 'good') consider.push('No change needed for heat soak. Keep this log as the reference for later comparisons.')
+  if (level === 'good' && !highDelta) consider.push('No heat soak to speak of across the pulls: no change needed. Keep this log as the reference for later comparisons.')
+  if (level === 'good' && highDelta) {
+    const everyPull = pulls.every(p => p.meanDeltaOverAmbientK != null && p.meanDeltaOverAmbientK > VERDICT_THRESHOLDS.highDeltaK)
+    consider.push(`No heat soak to speak of across the pulls, but the charge air runs ${formatTemperatureDifference(delta, t)} above the ambient temperature ${everyPull ? 'on every pull' : 'on average'}: a larger core, or better air flow to it (ducting, no blocked grille), would lower that. More than ${formatTemperatureDifference(VERDICT_THRESHOLDS.highDeltaK, t, 0)} over ambient is a lot for a working intercooler (common practice, no source); ask the workshop whether a change would pay off.`)
+  }
   if (level !== 'good') consider.push('Give the car more time between hard pulls; the charge air recovers as the core cools.')
-  if (level === 'poor' || (delta != null && delta > VERDICT_THRESHOLDS.highDeltaK)) {
+  if (level !== 'good' && (level === 'poor' || highDelta)) {
     consider.push('Ask the workshop whether a larger intercooler core, or better air flow to it (ducting, no blocked grille), would pay off.')
   }
   if (summary.meanEffectiveness != null && summary.meanEffectiveness < VERDICT_THRESHOLDS.lowEffectiveness) {

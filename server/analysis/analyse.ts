@@ -371,7 +371,7 @@ export function analyseLog(input: LogChannels | ImportedLog, options: AnalyseOpt
     })
   }
   if (noBoostPulls > 0) {
-    warnings.push({ code: 'NO_BOOST', message: `${noBoostPulls} pull(s) show no boost and the log has no pre-cooler temperature, so intercooler effectiveness is not given for them.` })
+    warnings.push({ code: 'NO_BOOST', message: `${noBoostPulls === 1 ? '1 pull shows' : `${noBoostPulls} pulls show`} no boost and the log has no pre-cooler temperature, so intercooler effectiveness is not given for them.` })
   }
   const clippedPulls = kept.filter(p => p.clipped.length > 0).length
   if (maskResult.spans.some(s => s.reason === 'clipped')) {

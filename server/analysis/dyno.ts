@@ -1,6 +1,7 @@
 // Dyno runs: each measured power restated at reference air by the four standards the workshop can
 // quote (correction.ts, formulas from memory as stated there), and before/after corrected power
 // compared with the same Welch statistics as the logs (comparison.ts).
+import { formatFixed } from '../../shared/utils/format'
 import { compareSamples } from './comparison'
 import { KELVIN_OFFSET } from './constants'
 import { din70020, iso1585CompressionIgnition, iso1585SparkIgnition, saeJ1349_1990, saeJ1349_2004, type CorrectionResult } from './correction'
@@ -125,11 +126,11 @@ export function compareDynoRuns(runs: readonly DynoSideInput[], standard: DynoSt
   }
   else if (c.differenceExcludesZero && Math.abs(changePct) > 3) {
     verdictTone = changeKw > 0 ? 'better' : 'worse'
-    verdict = `Corrected power ${changeKw > 0 ? 'rose' : 'fell'} by ${change}; 95 % interval ${interval[0].toFixed(1)} to ${interval[1].toFixed(1)} kW.`
+    verdict = `Corrected power ${changeKw > 0 ? 'rose' : 'fell'} by ${change}; 95 % interval ${formatFixed(interval[0])} to ${formatFixed(interval[1])} kW.`
   }
   else {
     verdictTone = 'noise'
-    verdict = `Corrected power changed by ${change}, within the noise: the 95 % interval is ${interval[0].toFixed(1)} to ${interval[1].toFixed(1)} kW${Math.abs(changePct) <= 3 ? ', and 2–3 % is within a dyno\'s run-to-run spread' : ''}.`
+    verdict = `Corrected power changed by ${change}, within the noise: the 95 % interval is ${formatFixed(interval[0])} to ${formatFixed(interval[1])} kW${Math.abs(changePct) <= 3 ? ', and 2–3 % is within a dyno\'s run-to-run spread' : ''}.`
   }
   return {
     standard,

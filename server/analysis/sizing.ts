@@ -459,8 +459,8 @@ function assumptionsFor(effectivenessSource: 'measured' | 'estimated', flowSourc
   designFlowSource: 'log' | 'power', etaLog: number | null, roadFromDesign: boolean, pullCount: number, baseCeiling: number, ceiling: number): string[] {
   return [
     effectivenessSource === 'measured'
-      ? `The fitted core's effectiveness is the mean of ${pullCount} pull(s) measured with a pre-cooler sensor; heat soak is included, so its UA is on the low side.`
-      : `The log has no pre-cooler temperature: the fitted core's effectiveness (mean of ${pullCount} pull(s)) is an estimate from the compressor relation, and so is everything calibrated from it.`,
+      ? `The fitted core's effectiveness is the mean of ${pullCount} ${pullCount === 1 ? 'pull' : 'pulls'} measured with a pre-cooler sensor; heat soak is included, so its UA is on the low side.`
+      : `The log has no pre-cooler temperature: the fitted core's effectiveness (mean of ${pullCount} ${pullCount === 1 ? 'pull' : 'pulls'}) is an estimate from the compressor relation, and so is everything calibrated from it.`,
     flowSource === 'maf'
       ? 'Air mass flow: the mean of the log\'s air mass flow over the pulls.'
       : `Air mass flow by speed-density from engine size, engine speed, boost and charge temperature, with a volumetric efficiency of ${volumetricEfficiency.toFixed(2)} (Heywood 1988 §2.10, section from memory; 0.85–1.0 is common practice for a boosted engine).`,

@@ -1,11 +1,19 @@
 import type { H3Event } from 'h3'
+import { isCustomer, type HasRole } from '#shared/utils/abilities'
 import { fieldPathLabel } from '#shared/utils/fieldLabels'
 import type { z } from 'zod'
 
 // One error vocabulary for the API: every message says what was wrong and what to do.
 
-export function notFound(what: string): never {
-  throw createError({ statusCode: 404, message: `${what} not found. Check the link, or ask the workshop for a new one.` })
+/**
+ * Worded for who reads it: a customer can only ask the workshop; staff are the workshop, so they
+ * hear why a record they once saw may be gone (deleted, or in another workshop's Densitas).
+ */
+export function notFound(what: string, reader?: HasRole): never {
+  const hint = reader && !isCustomer(reader)
+    ? 'It may have been deleted, or it belongs to another workshop. Open it again from the list.'
+    : 'Check the link, or ask the workshop for a new one.'
+  throw createError({ statusCode: 404, message: `${what} not found. ${hint}` })
 }
 
 export function forbidden(message: string): never {

@@ -38,7 +38,7 @@ export function visibleVehicles(actor: Actor): SQL {
 
 export function findVisibleVehicle(actor: Actor, id: number) {
   const vehicle = useDb().select().from(tables.vehicles).where(and(eq(tables.vehicles.id, id), visibleVehicles(actor))).get()
-  if (!vehicle) notFound('Car')
+  if (!vehicle) notFound('Car', actor)
   return vehicle
 }
 

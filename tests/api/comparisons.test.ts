@@ -115,6 +115,8 @@ const REFUSALS: Record<number, string> = {
   403: 'Only a tuner or the workshop owner builds comparisons. You can read the ones on this car.',
   404: 'Car not found. Check the link, or ask the workshop for a new one.',
 }
+// Staff of another workshop are told why a car may be gone, not to ask "the workshop".
+const STAFF_NOT_FOUND = 'Car not found. It may have been deleted, or it belongs to another workshop. Open it again from the list.'
 
 describe('POST /api/comparisons', () => {
   it.each([
@@ -129,7 +131,7 @@ describe('POST /api/comparisons', () => {
       expect(footprint()).toEqual({ comparisons: before.comparisons + 1, sides: before.sides + 2 })
     }
     else {
-      expect(reply.body.message).toBe(REFUSALS[status])
+      expect(reply.body.message).toBe(who === 'foreignOwner' ? STAFF_NOT_FOUND : REFUSALS[status])
       expect(footprint()).toEqual(before)
     }
   })

@@ -95,6 +95,27 @@ describe('ReportVerdict', () => {
     expect(consider).toContain('risk of knock')
   })
 
+  it('reads one story for a core that does not soak but runs warm over ambient, and for a clear soak', async () => {
+    const warm = analysisWith(0.2, 4)
+    warm.pulls.forEach((p, i) => {
+      p.meanDeltaOverAmbientK = [26, 27, 27.5, 28][i]!
+    })
+    warm.summary.meanDeltaOverAmbientK = 27.125
+    const steady = await mountSuspended(Verdict, { props: { analysis: warm, vehicle: { ratedPowerKw: 100, fuel: 'petrol' } } })
+    expect(steady.find('[data-testid="verdict-headline"]').text()).toBe('The intercooler holds up well')
+    expect(steady.findAll('[data-testid="verdict-consider"] li').map(li => li.text())).toEqual([
+      'No heat soak to speak of across the pulls, but the charge air runs 27.1 K above the ambient temperature on every pull: a larger core, or better air flow to it (ducting, no blocked grille), would lower that. More than 25 K over ambient is a lot for a working intercooler (common practice, no source); ask the workshop whether a change would pay off.',
+    ])
+
+    // 40 → 60 °C over six pulls (1 − 313.15/333.15 = 6.0 % lost): heavy soak, so more time between pulls and a larger core.
+    const soaking = await mountSuspended(Verdict, { props: { analysis: analysisWith(4), vehicle } })
+    expect(soaking.find('[data-testid="verdict"]').attributes('data-level')).toBe('poor')
+    expect(soaking.findAll('[data-testid="verdict-consider"] li').map(li => li.text())).toEqual([
+      'Give the car more time between hard pulls; the charge air recovers as the core cools.',
+      'Ask the workshop whether a larger intercooler core, or better air flow to it (ducting, no blocked grille), would pay off.',
+    ])
+  })
+
   it('offers a tuner to keep the pulls left out when most were, and tells the drive in plain words', async () => {
     const analysis = analysisWith(1, 1)
     analysis.summary.foundPullCount = 5

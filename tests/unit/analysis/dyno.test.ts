@@ -46,6 +46,8 @@ describe('before and after corrected power', () => {
     // Welch: s = 2 each side, SE = √(4/3 + 4/3) = 1.63299, ν = 4, t(0.975, 4) = 2.776445 → ±4.5339
     expect(c.interval![0]).toBeCloseTo(2 - 4.5339, 3)
     expect(c.verdictTone).toBe('noise')
+    // The lower end is negative: printed with the typographic minus, as every figure on screen.
+    expect(c.verdict).toBe('Corrected power changed by +2.0 kW (+2.0 %), within the noise: the 95 % interval is −2.5 to 6.5 kW, and 2–3 % is within a dyno\'s run-to-run spread.')
   })
 
   it('needs a run on each side', () => {

@@ -299,6 +299,7 @@ describe('real logs', () => {
     expect(result.summary.pullCount).toBe(2)
     expect(result.drive.deltaOverAmbientUnderBoostK).toBeNull()
     expect(result.summary.lossNormalisation.method).toBe('ambient')
+    expect(result.warnings.find(w => w.code === 'NO_BOOST')?.message).toBe('2 pulls show no boost and the log has no pre-cooler temperature, so intercooler effectiveness is not given for them.')
   })
 
   it('leaves the diesel engine-stop artefacts out, and nothing else', async () => {

@@ -14,7 +14,8 @@ import {
   toDisplay,
 } from '../../../shared/quantities/display'
 import { convert, HP_W, isUnit, PS_W, PSI_PA } from '../../../shared/quantities/units'
-import { formatPower, formatPressure, formatTemperature } from '../../../shared/utils/format'
+import { formatFixed, formatPower, formatPressure, formatTemperature } from '../../../shared/utils/format'
+import { formatEffectiveness } from '../../../utils/comparison'
 import { formatTemperatureDifference, seriesConversion, temperatureIn } from '../../../utils/displayUnits'
 
 describe('display units come from the unit catalogue', () => {
@@ -45,9 +46,22 @@ describe('display units come from the unit catalogue', () => {
     expect(formatPower(1000 * HP_W / 1000, 'hp', 3)).toBe('1000.000 hp')
     expect(formatPower(1000 * PS_W / 1000, 'PS', 3)).toBe('1000.000 PS')
     expect(formatPressure(220, 'psi', 6)).toBe(`${convert(220, 'kPa', 'psi').toFixed(6)} psi`)
-    expect(formatTemperature(-40, 'F')).toBe('-40.0 °F')
+    expect(formatTemperature(-40, 'F')).toBe('−40.0 °F')
     // A bar is 100 kPa: one decimal more keeps the resolution of the kPa figure.
     expect(formatPressure(101.3, 'bar')).toBe('1.01 bar')
+  })
+
+  it('prints a negative figure with the typographic minus, and no sign on a value that rounds to zero', () => {
+    expect(formatFixed(-1.46)).toBe('−1.5')
+    expect(formatFixed(-0.04)).toBe('0.0')
+    expect(formatFixed(-0.4, 0)).toBe('0')
+    expect(formatFixed(2.25, 2)).toBe('2.25')
+    expect(formatTemperatureDifference(-1.46, 'C')).toBe('−1.5 K')
+    expect(formatTemperatureDifference(-1, 'F')).toBe('−1.8 °F')
+    expect(formatPower(-3.04, 'kW', 1)).toBe('−3.0 kW')
+    expect(formatPressure(-0.02, 'kPa')).toBe('0.0 kPa')
+    // A faulty sensor can make an effectiveness negative.
+    expect(formatEffectiveness(-0.052)).toBe('−5.2 %')
   })
 
   it('converts temperature differences by the scale only (1 K = 1.8 °F of difference, exact)', () => {
