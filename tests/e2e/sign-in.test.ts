@@ -35,6 +35,19 @@ describe('each demo person signs in and lands on their own home', () => {
     await screenshot(page, `home-${email.replace(/[@.]/g, '-')}`)
   })
 
+  it('answers an address that is not a record\'s with "no page here", not a fault', async () => {
+    const { page, context } = browser
+    await context.clearCookies()
+    await signInThroughPage(page, 'fab@kestrel.test')
+    await page.getByTestId('home-fabricator').waitFor()
+    for (const path of ['/sizing/new', '/quotes/abc', '/logs/1.5', '/no-such-page']) {
+      const response = await page.goto(path)
+      expect(response?.status(), path).toBe(404)
+      await page.getByRole('heading', { name: 'Nothing here' }).waitFor()
+      await expect(page.getByText('There is no page at this address.').isVisible(), path).resolves.toBe(true)
+    }
+  })
+
   it('says plainly when the password is wrong', async () => {
     const { page, context } = browser
     await context.clearCookies()

@@ -27,4 +27,19 @@ describe('QuoteList search hint', () => {
     const customer = await mountSuspended(QuoteList, { props: { showCar: true } })
     expect(customer.find('input[type="search"]').attributes('placeholder')).toBe('Number, car or registration')
   })
+
+  it('heads the car column "Car" for a customer, without their own name beside each car', async () => {
+    signInAs('owner')
+    const staff = await mountSuspended(QuoteList, { props: { showCar: true } })
+    // A header reads its label, then the sort arrow.
+    const label = (th: { text: () => string }) => th.text().replace(/[▲▼↕]/g, '').trim()
+    expect(staff.findAll('th').map(label)).toContain('Car and customer')
+    expect(staff.text()).toContain('Dana Driver')
+    signInAs('driver')
+    const customer = await mountSuspended(QuoteList, { props: { showCar: true } })
+    const headers = customer.findAll('th').map(label)
+    expect(headers).toContain('Car')
+    expect(headers).not.toContain('Car and customer')
+    expect(customer.text()).not.toContain('Dana Driver')
+  })
 })
