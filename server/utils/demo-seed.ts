@@ -28,7 +28,7 @@ export async function seedDemoIfEmpty(db: Db) {
   const passwordHash = await hashPassword(DEMO_PASSWORD)
 
   const seeded = db.transaction((tx) => {
-    const kestrel = tx.insert(tables.workshops).values({ name: 'Kestrel Road Performance', slug: 'kestrel-road', currency: 'EUR', labourRateCents: 8500, depositPercent: 30 }).returning().get()
+    const kestrel = tx.insert(tables.workshops).values({ name: 'Kestrel Road Performance', slug: 'kestrel-road', currency: 'EUR', labourRateCents: 8500, depositPercent: 30, quoteTerms: 'Work is booked in once the deposit is paid. The balance is due when the car is collected. Parts ordered for this job are not returnable.' }).returning().get()
     const harbourside = tx.insert(tables.workshops).values({ name: 'Harbourside Fabrication', slug: 'harbourside', currency: 'GBP', labourRateCents: 7200, depositPercent: 25 }).returning().get()
 
     const addUsers = (workshopId: number, list: DemoUser[]) =>
