@@ -89,6 +89,16 @@ describe('UiDataTable', () => {
     expect(wide.find('[data-testid="things-phone-sort"]').exists()).toBe(false)
   })
 
+  it('offers the page\'s own worded sort choices instead, a key no column shows included', async () => {
+    const sortOptions = [{ label: 'Deepest first', sort: { key: 'depth', dir: 'desc' } }, { label: 'Recently changed', sort: { key: 'updated', dir: 'desc' } }]
+    const wrapper = await mountSuspended(Table, { props: { ...base, sort: { key: 'updated', dir: 'desc' }, sortOptions } })
+    const select = wrapper.find('[data-testid="things-phone-sort"]')
+    expect(select.findAll('option').map(o => o.text())).toEqual(['Deepest first', 'Recently changed'])
+    expect((select.element as HTMLSelectElement).value).toBe('updated:desc')
+    await select.setValue('depth:desc')
+    expect(wrapper.emitted('update:sort')).toEqual([[{ key: 'depth', dir: 'desc' }]])
+  })
+
   it('gives each row its own test id and attributes when asked', async () => {
     const wrapper = await mountSuspended(Table, { props: { ...base, rowTestid: (row: Row) => `thing-${row.id}`, rowAttrs: (row: Row) => ({ 'data-status': row.depthMm == null ? 'no-depth' : 'ok' }) } })
     expect(wrapper.find('[data-testid="thing-2"]').attributes('data-status')).toBe('no-depth')
