@@ -43,9 +43,21 @@ describe('when the analysis threads are all busy', () => {
     // The demo seed's two logs are analysed as the server starts; let it finish.
     for (let attempt = 0; attempt < 100 && count() < 2; attempt++) await new Promise(r => setTimeout(r, 200))
     const before = count()
-    // Four 20 MB uploads a moment apart, each on a connection of its own with a true Content-Length.
-    const replies = await Promise.all(Array.from({ length: 4 }, (_, i) => new Promise(resolve => setTimeout(resolve, i * 50))
-      .then(() => streamUpload({ baseUrl: server.baseUrl, cookie, fields: { vehicleId }, fileName: 'busy.csv', fileBytes: 20 * 1024 * 1024, contentLength: 'true' }))))
+    // One 40 MB log that reads as a real one (its analysis holds the one thread for a while), and
+    // small uploads every 100 ms while it is under way, each on a connection of its own with a true
+    // Content-Length: the small uploads that arrive during its analysis find the thread busy.
+    const rows = Buffer.from(Array.from({ length: 800_000 }, (_, i) => `${(i * 0.1).toFixed(1)},${2000 + (i % 300) * 10},${i % 600 < 80 ? 100 : 20},${i % 600 < 80 ? 210 : 101},${45 + (i % 600) / 60},${90 + (i % 600) / 20},21.0,${60 + (i % 300) / 10}\n`).join(''))
+    const upload = (fileBytes: number, fileRows?: Buffer) => streamUpload({ baseUrl: server.baseUrl, cookie, fields: { vehicleId }, fileName: 'busy.csv', fileBytes, fileRows, contentLength: 'true' })
+    let bigDone = false
+    const big = upload(rows.length, rows).finally(() => {
+      bigDone = true
+    })
+    const probes: ReturnType<typeof upload>[] = []
+    while (!bigDone && probes.length < 300) {
+      probes.push(upload(256 * 1024))
+      await new Promise(r => setTimeout(r, 100))
+    }
+    const replies = [await big, ...await Promise.all(probes)]
     const busy = replies.filter(reply => reply.status === 503)
     const stored = replies.filter(reply => reply.status === 201)
     // The one that got the thread is analysed (stored, or refused for its content); none is dropped.

@@ -9,8 +9,10 @@ export interface StreamedUploadOptions {
   cookie: string
   fields: Record<string, string | number>
   fileName: string
-  /** Size of the file part in bytes; its content is repeated log lines. */
+  /** Size of the file part in bytes; its content is repeated log lines (or the first bytes of `fileRows`). */
   fileBytes: number
+  /** Data rows to send instead of the one repeated line (under the same header). */
+  fileRows?: Buffer
   /** Send this Content-Length instead of chunked transfer (a lie when it does not match), or the true one. */
   contentLength?: number | 'true'
 }
@@ -36,6 +38,9 @@ export function streamUpload(options: StreamedUploadOptions): Promise<StreamedUp
   head += `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${options.fileName}"\r\nContent-Type: text/csv\r\n\r\nTime (s),Engine speed (rpm),Pedal (%),Manifold pressure abs (kPa),Charge air temp (°C),Pre-cooler temp (°C),Ambient temp (°C),Road speed (km/h)\n`
   const tail = `\r\n--${boundary}--\r\n`
   const chunk = Buffer.from(LINE.repeat(Math.ceil((1 << 20) / LINE.length)).slice(0, 1 << 20))
+  const pieceAt = (offset: number, length: number) => options.fileRows
+    ? options.fileRows.subarray(offset, offset + length)
+    : length >= chunk.length ? chunk : chunk.subarray(0, length)
   const url = new URL('/api/logs', options.baseUrl)
   const headers: Record<string, string | number> = {
     'content-type': `multipart/form-data; boundary=${boundary}`,
@@ -75,7 +80,7 @@ export function streamUpload(options: StreamedUploadOptions): Promise<StreamedUp
     const pump = async () => {
       req.write(head)
       while (!answered && !settled && sent < options.fileBytes) {
-        const piece = options.fileBytes - sent >= chunk.length ? chunk : chunk.subarray(0, options.fileBytes - sent)
+        const piece = pieceAt(sent, Math.min(chunk.length, options.fileBytes - sent))
         sent += piece.length
         if (!req.write(piece)) {
           await new Promise<void>((done) => {
